@@ -1,0 +1,3 @@
+"""machinecheck: does a motor or generator nameplate fit a site supply, and what follows."""
+
+__version__ = "0.1.0"

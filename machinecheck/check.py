@@ -1,0 +1,516 @@
+"""The check engine: (machine, site) -> Assessment with verdict, figures and findings.
+
+The engine picks the rating set and connection, computes every figure with the physics
+functions, then asks each rule in :mod:`machinecheck.rules` for findings. It returns data and
+never prints. Values are SI floats (W, V, A, Hz, rpm) as in the model.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass, field
+
+from .errors import DomainError
+from .model import Connection, Machine, Rating, Site
+from .physics import current as current_physics
+from .physics import environment, frequency, loads, nec, starting, tolerance, unbalance
+from .physics import speed as speed_physics
+from .physics.efficiency import efficiency_class_of, minimum_efficiency
+
+SEVERITIES = ("info", "warning", "problem")
+VERDICTS = ("compatible", "conditional", "incompatible")
+_VERDICT_OF = {"info": "compatible", "warning": "conditional", "problem": "incompatible"}
+
+#: Frequency band of each standard's tolerance (per unit); outside it the machine is re-rated.
+FREQUENCY_BAND = {"IEC": (-0.05, 0.03), "NEMA": (-0.05, 0.05)}
+#: Range of frequency ratios over which a re-rating from the plate is still meaningful.
+RERATING_RANGE = (0.5, 1.5)
+
+DELTA_NAMES = frozenset({"delta", "d", "Δ", "triangle", "dreieck", "low-delta"})
+STAR_NAMES = frozenset({"star", "y", "wye", "Y", "yy", "high-star"})
+
+
+@dataclass(slots=True)
+class Finding:
+    code: str
+    severity: str
+    message: str
+
+
+@dataclass(slots=True)
+class Assessment:
+    """Everything known about one machine on one site supply."""
+
+    machine: Machine
+    site: Site
+    rating: Rating
+    connection: Connection
+    supply_voltage_v: float
+    supply_voltage_note: str
+    rated_voltage_v: float
+    phases_ok: bool
+    rerated: bool
+    frequency_ratio: float
+    flux_ratio: float
+    torque_capability: float
+    synchronous_speed_rpm: float
+    poles: int
+    tolerance: dict
+    factors: dict
+    combined_factor: float
+    rated_power_w: float
+    available_power_w: float | None = None
+    rated_apparent_power_va: float | None = None
+    available_apparent_power_va: float | None = None
+    expected_speed_rpm: float | None = None
+    speed_band_rpm: float | None = None
+    load_power_w: float | None = None
+    load_fraction: float | None = None
+    flow_ratio: float | None = None
+    head_ratio: float | None = None
+    load_speed_ratio: float | None = None
+    stalled: bool = False
+    full_load_current_a: float | None = None
+    operating_current_a: float | None = None
+    current_basis: str | None = None
+    formula_current_a: float | None = None
+    nameplate_formula_ratio: float | None = None
+    locked_rotor_current_a: tuple[float, float] | None = None
+    locked_rotor_basis: str | None = None
+    code_current_a: float | None = None
+    code_current_hp: float | None = None
+    service_factor: float = 1.0
+    service_factor_at_site: float = 1.0
+    star_delta_possible: bool | None = None
+    efficiency_class: str | None = None
+    efficiency_class_minimum: float | None = None
+    unbalance: float | None = None
+    site_derating_domain_error: str | None = None
+    slip_model_valid: bool = True
+    working: list[str] = field(default_factory=list)
+    findings: list[Finding] = field(default_factory=list)
+    verdict: str = "compatible"
+
+    def add(self, code: str, severity: str, message: str) -> None:
+        self.findings.append(Finding(code, severity, message))
+
+
+# ----------------------------------------------------------------------------- choices
+
+def supply_voltages(machine: Machine, site: Site) -> list[tuple[float, str]]:
+    """Voltages the site offers this machine's winding, with a note of which they are."""
+    if machine.phases == 3 or site.phases == 2:
+        return [(site.voltage_v, "")]
+    if site.phases == 3:
+        offered = [(site.voltage_v, "line-to-line")]
+        if site.system in (None, "wye"):
+            offered.append((site.voltage_v / math.sqrt(3.0), "line-to-neutral"))
+        return offered
+    if site.system == "split-phase":
+        return [(site.voltage_v, "line-to-line"), (site.voltage_v / 2.0, "line-to-neutral")]
+    return [(site.voltage_v, "")]
+
+
+def in_frequency_band(frequency_deviation: float, standard: str) -> bool:
+    low, high = FREQUENCY_BAND.get(standard, FREQUENCY_BAND["IEC"])
+    return low - 1e-9 <= frequency_deviation <= high + 1e-9
+
+
+def choose(machine: Machine, site: Site):
+    """Pick (rating, connection, supply voltage, note, flux ratio, reference voltage).
+
+    A rating set for the site frequency beats re-rating from another one; then the connection
+    (and, for single-phase machines, the supply voltage) whose V/f is nearest the rated V/f.
+    """
+    matching = [r for r in machine.ratings
+                if in_frequency_band(site.frequency_hz / r.frequency_hz - 1.0, site.standard)]
+    candidates = matching or list(machine.ratings)
+    best = None
+    for rating in candidates:
+        f_ratio = site.frequency_hz / rating.frequency_hz
+        for connection in rating.connections:
+            for volts, note in supply_voltages(machine, site):
+                reference = connection.reference_voltage(volts / f_ratio)
+                k = (volts / reference) / f_ratio
+                score = abs(math.log(k)) + 0.001 * abs(math.log(f_ratio))
+                if best is None or score < best[0] - 1e-12:
+                    best = (score, rating, connection, volts, note, k, reference)
+    _, rating, connection, volts, note, k, reference = best
+    return rating, connection, volts, note, k, reference
+
+
+# ----------------------------------------------------------------------------- engine
+
+def assess(machine: Machine, site: Site, *, explain: bool = False) -> Assessment:
+    """Check one machine against one site supply."""
+    rating, connection, volts, note, k, reference = choose(machine, site)
+    f_ratio = site.frequency_hz / rating.frequency_hz
+    f_dev = f_ratio - 1.0
+    rerated = not in_frequency_band(f_dev, site.standard)
+    poles = machine.poles
+    n_s = speed_physics.synchronous_speed(site.frequency_hz, poles)
+    phases_ok = machine.phases == 1 or site.phases == 3
+
+    a = Assessment(
+        machine=machine, site=site, rating=rating, connection=connection,
+        supply_voltage_v=volts, supply_voltage_note=note, rated_voltage_v=reference,
+        phases_ok=phases_ok, rerated=rerated, frequency_ratio=f_ratio, flux_ratio=k,
+        torque_capability=frequency.torque_capability(k), synchronous_speed_rpm=n_s,
+        poles=poles, tolerance={}, factors={}, combined_factor=1.0,
+        rated_power_w=rating.power_w or 0.0,
+        rated_apparent_power_va=rating.apparent_power_va)
+    w = a.working if explain else None
+    if w is not None:
+        _explain_choice(a, w)
+
+    _tolerance(a, w)
+    _factors(a, w)
+    if machine.is_generator:
+        _generator(a, w)
+    else:
+        _motor_speed_and_load(a, w)
+        _motor_current(a, w)
+        _starting(a, w)
+        _code_current(a, w)
+        _efficiency(a)
+    _service_factor(a)
+    _star_delta(a)
+
+    from .rules import RULES
+
+    for rule in RULES:
+        rule(a)
+    worst = max((SEVERITIES.index(f.severity) for f in a.findings), default=0)
+    a.verdict = _VERDICT_OF[SEVERITIES[worst]]
+    return a
+
+
+def assess_all(machines, sites, *, explain: bool = False, progress=None) -> list[Assessment]:
+    """Check every machine against every site; ``progress`` is called once per machine."""
+    results = []
+    for machine in machines:
+        for site in sites:
+            results.append(assess(machine, site, explain=explain))
+        if progress is not None:
+            progress()
+    return results
+
+
+def _explain_choice(a: Assessment, w: list[str]) -> None:
+    r, c = a.rating, a.connection
+    sets = len(a.machine.ratings)
+    w.append(f"rating set: {r.frequency_hz:g} Hz (of {sets}); connection "
+             f"{c.name or 'as stamped'} at {_volts(c)}; supply {a.supply_voltage_v:.0f} V "
+             f"{a.supply_voltage_note}".rstrip())
+    w.append(f"synchronous speed n_s = 120 f / p = 120 x {a.site.frequency_hz:g} / {a.poles} = "
+             f"{a.synchronous_speed_rpm:.0f} rpm")
+    w.append(f"flux ratio k = (V / V_rated) / (f / f_rated) = ({a.supply_voltage_v:.1f} / "
+             f"{a.rated_voltage_v:.1f}) / ({a.site.frequency_hz:g} / {r.frequency_hz:g}) = "
+             f"{a.flux_ratio:.3f}; torque capability k^2 = {a.torque_capability:.3f}")
+
+
+def _volts(c: Connection) -> str:
+    if c.is_range:
+        return f"{c.voltage_min_v:g}-{c.voltage_max_v:g} V"
+    return f"{c.voltage_min_v:g} V"
+
+
+def _tolerance(a: Assessment, w) -> None:
+    site, c = a.site, a.connection
+    generator = a.machine.is_generator
+    if a.rerated:
+        dv, df = a.flux_ratio - 1.0, 0.0
+        basis = "re-rated"
+    else:
+        dv = tolerance.voltage_deviation(a.supply_voltage_v, c.voltage_min_v, c.voltage_max_v)
+        df = a.frequency_ratio - 1.0
+        basis = "rated"
+    points = [(dv, df)]
+    if site.voltage_range_v is not None and not a.rerated:
+        scale = a.supply_voltage_v / site.voltage_v
+        for end in site.voltage_range_v:
+            points.append((tolerance.voltage_deviation(end * scale, c.voltage_min_v,
+                                                       c.voltage_max_v), df))
+    elif site.voltage_range_v is not None:
+        for end in site.voltage_range_v:
+            points.append((a.flux_ratio * end / site.voltage_v - 1.0, df))
+    result = {"standard": site.standard, "basis": basis, "voltage_deviation": dv,
+              "frequency_deviation": a.frequency_ratio - 1.0}
+    if site.standard == "NEMA" and not generator:
+        checks = [tolerance.nema_variation(*p) for p in points]
+        result["within"] = all(ok for ok, _ in checks)
+        result["combined_variation"] = max(comb for _, comb in checks)
+        result["zone"] = None
+        worst = max(points, key=lambda p: abs(p[0]) + abs(p[1]))
+    else:
+        order = {"A": 0, "B": 1, None: 2}
+        zones = [tolerance.iec_zone(*p, generator=generator) for p in points]
+        worst_zone = max(zones, key=lambda z: order[z])
+        result["zone"] = worst_zone
+        result["within"] = worst_zone is not None
+        worst = points[zones.index(worst_zone)]
+    result["worst_voltage_deviation"] = worst[0]
+    a.tolerance = result
+    if w is not None:
+        where = "zone " + str(result.get("zone")) if result.get("zone") is not None else (
+            "within" if result["within"] else "outside")
+        w.append(f"tolerance ({site.standard}, {basis}): dV = {100 * dv:+.1f} %, "
+                 f"df = {100 * (a.frequency_ratio - 1):+.1f} % -> {where}")
+
+
+def _factors(a: Assessment, w) -> None:
+    m, site = a.machine, a.site
+    factors = {}
+    if a.rerated and not m.is_generator:
+        factors["frequency"] = frequency.frequency_output_factor(a.frequency_ratio, a.flux_ratio)
+        factors["overflux"] = frequency.overflux_derating(a.flux_ratio)
+        factors["cooling"] = frequency.cooling_derating(a.frequency_ratio, m.cooling)
+    if m.is_generator:
+        # rated current is the thermal limit: kVA follows the terminal voltage
+        factors["voltage"] = min(1.0, a.supply_voltage_v / a.rated_voltage_v)
+    if m.phases == 3 and site.phases == 3 and not m.is_generator:
+        u = site.unbalance
+        if u is None and site.line_voltages_v is not None:
+            u = unbalance.voltage_unbalance(site.line_voltages_v)
+        a.unbalance = u
+        if u is not None:
+            factors["unbalance"] = unbalance.unbalance_derating(min(u, unbalance.UNBALANCE_LIMIT))
+    altitude = site.altitude_m - (m.rated_altitude_m - environment.RATED_ALTITUDE_M)
+    ambient = site.ambient_degc - (m.rated_ambient_degc - environment.RATED_AMBIENT_DEGC)
+    try:
+        site_factor = environment.site_derating(altitude, ambient)
+    except DomainError as exc:
+        a.site_derating_domain_error = str(exc)
+        site_factor = environment.site_derating(min(altitude, environment.MAX_ALTITUDE_M),
+                                                min(ambient, environment.MAX_AMBIENT_DEGC))
+    factors["site"] = min(1.0, site_factor)
+    a.factors = factors
+    combined = 1.0
+    for value in factors.values():
+        combined *= value
+    a.combined_factor = combined
+    if a.phases_ok:
+        if m.is_generator:
+            a.available_apparent_power_va = (a.rated_apparent_power_va or 0.0) * combined
+            a.available_power_w = a.available_apparent_power_va * (a.rating.power_factor or 0.8)
+        else:
+            a.available_power_w = a.rated_power_w * combined
+    if w is not None:
+        text = " x ".join(f"{name} {value:.3f}" for name, value in factors.items())
+        w.append(f"derating factors: {text} = {combined:.3f}")
+        if "frequency" in factors:
+            w.append(f"  frequency: min(1, (f / f_rated) x min(1, k)) = min(1, "
+                     f"{a.frequency_ratio:.3f} x {min(1.0, a.flux_ratio):.3f})")
+        if a.available_power_w is not None and not m.is_generator:
+            w.append(f"available output = {a.rated_power_w / 1000:.2f} kW x {combined:.3f} = "
+                     f"{a.available_power_w / 1000:.2f} kW")
+
+
+def _rated_torque(a: Assessment) -> float | None:
+    rating = a.rating
+    if not rating.power_w:
+        return None
+    speed = rating.speed_rpm or 120.0 * rating.frequency_hz / a.poles
+    return speed_physics.shaft_torque(rating.power_w, speed)
+
+
+def _motor_speed_and_load(a: Assessment, w) -> None:
+    m, rating = a.machine, a.rating
+    n_s = a.synchronous_speed_rpm
+    n_s_rated = 120.0 * rating.frequency_hz / a.poles
+    n_ref = rating.speed_rpm or n_s_rated  # the load's figures are given at this speed
+    t_rated = _rated_torque(a)
+    load = m.load
+    if load is not None:
+        t0 = load.torque_nm if load.torque_nm is not None else speed_physics.shaft_torque(
+            load.power_w, n_ref)
+
+        def load_torque(n):
+            return t0 * loads.torque_ratio(load.type, n / n_ref)
+    elif a.available_power_w is not None:
+        available = a.available_power_w
+
+        def load_torque(n):
+            return available / (n * math.pi / 30.0)
+    else:
+        load_torque = None
+
+    if not a.phases_ok:
+        return
+    if m.is_synchronous:
+        a.expected_speed_rpm = n_s
+        if w is not None:
+            w.append(f"synchronous motor: runs at n_s = {n_s:.0f} rpm")
+    elif rating.speed_rpm is not None and t_rated and load_torque is not None:
+        slip_rated = n_s_rated - rating.speed_rpm
+        k2 = a.flux_ratio ** 2
+        n = n_s - slip_rated * (load_torque(n_s) / t_rated) / k2
+        for _ in range(60):
+            if n <= 0.3 * n_s:
+                break
+            n_next = n_s - slip_rated * (load_torque(n) / t_rated) / k2
+            if abs(n_next - n) < 1e-7:
+                n = n_next
+                break
+            n = n_next
+        if n <= 0.5 * n_s:
+            a.stalled = True
+            n = None
+        else:
+            a.expected_speed_rpm = n
+            a.speed_band_rpm = 0.2 * (n_s - n)  # NEMA MG 1 / IEC 60034-1: slip +-20 %
+        tau = load_torque(n) / t_rated if n else None
+        a.slip_model_valid = (0.8 <= a.flux_ratio <= 1.2) and (tau is None or tau <= 1.5)
+        if w is not None and n:
+            w.append(f"running speed: slip at rated = {n_s_rated:.0f} - {rating.speed_rpm:.0f} = "
+                     f"{slip_rated:.1f} rpm; at the site slip = {slip_rated:.1f} x T/T_rated "
+                     f"{tau:.3f} / k^2 {k2:.3f} = {n_s - n:.1f} rpm -> n = {n:.0f} rpm "
+                     f"(+-{a.speed_band_rpm:.0f} rpm: slip tolerance +-20 %)")
+    if load is not None and a.expected_speed_rpm is not None:
+        n = a.expected_speed_rpm
+        ratio = n / n_ref
+        a.load_speed_ratio = ratio
+        a.load_power_w = load_torque(n) * n * math.pi / 30.0
+        if a.available_power_w:
+            a.load_fraction = a.load_power_w / a.available_power_w
+        if load.type == "centrifugal":
+            a.flow_ratio, a.head_ratio, _ = loads.affinity(ratio)
+        elif load.type == "constant-torque":
+            a.flow_ratio = ratio
+        if w is not None:
+            w.append(f"load ({load.type}): speed ratio n / n_rated = {n:.0f} / {n_ref:.0f} = "
+                     f"{ratio:.3f}; load power = {a.load_power_w / 1000:.2f} kW")
+
+
+def _motor_current(a: Assessment, w) -> None:
+    m, rating, c = a.machine, a.rating, a.connection
+    if not a.phases_ok:
+        return
+    phases = m.phases
+    eta, pf = rating.efficiency, rating.power_factor
+    output = a.available_power_w
+    if output is None:
+        return
+    power_ratio = output / rating.power_w if rating.power_w else 1.0
+    if a.load_power_w is not None and c.current_a:
+        a.operating_current_a = current_physics.current_at_site(
+            c.current_a, a.rated_voltage_v, a.supply_voltage_v, a.load_power_w / rating.power_w)
+    if eta and pf and rating.power_w:
+        a.formula_current_a = current_physics.full_load_current(
+            output, a.supply_voltage_v, eta, pf, phases)
+        if c.current_a:
+            rated_formula = current_physics.full_load_current(
+                rating.power_w, c.voltage_v, eta, pf, phases)
+            a.nameplate_formula_ratio = c.current_a / rated_formula
+    if c.current_a:
+        a.full_load_current_a = current_physics.current_at_site(
+            c.current_a, a.rated_voltage_v, a.supply_voltage_v, power_ratio)
+        a.current_basis = "nameplate"
+        if w is not None:
+            w.append(f"current: I = I_rated x P / P_rated x V_rated / V = {c.current_a:.1f} x "
+                     f"{power_ratio:.3f} x {a.rated_voltage_v:.0f} / {a.supply_voltage_v:.0f} = "
+                     f"{a.full_load_current_a:.1f} A")
+    elif a.formula_current_a is not None:
+        a.full_load_current_a = a.formula_current_a
+        a.current_basis = "formula"
+    if w is not None and a.formula_current_a is not None:
+        root = "sqrt(3) x " if phases == 3 else ""
+        w.append(f"current from ratings: I = P / ({root}V x eta x PF) = {output:.0f} / ({root}"
+                 f"{a.supply_voltage_v:.0f} x {eta:.3f} x {pf:.2f}) = {a.formula_current_a:.1f} A")
+
+
+def _starting(a: Assessment, w) -> None:
+    rating, c, m = a.rating, a.connection, a.machine
+    index = rating.connections.index(c)
+    rated = None
+    if rating.locked_rotor_current_a is not None:
+        value = rating.locked_rotor_current_a[min(index, len(rating.locked_rotor_current_a) - 1)]
+        rated, basis = (value, value), "nameplate locked-rotor current"
+    elif rating.starting_current_ratio is not None and c.current_a:
+        value = rating.starting_current_ratio * c.current_a
+        rated, basis = (value, value), f"Ia/In {rating.starting_current_ratio:g}"
+    elif m.code_letter is not None and rating.power_w:
+        hp = rating.power_w / 745.6998715822701
+        rated = starting.locked_rotor_current_from_code(m.code_letter, hp, c.voltage_v, m.phases)
+        basis = f"code letter {m.code_letter}"
+    if rated is None:
+        return
+    k = a.flux_ratio
+    low, high = (starting.locked_rotor_current_at_site(x, k) for x in rated)
+    a.locked_rotor_current_a = (low, high)
+    a.locked_rotor_basis = basis
+    if w is not None:
+        w.append(f"locked-rotor current ({basis}) at rated supply {rated[0]:.0f}"
+                 f"{'' if rated[1] == rated[0] else f'-{rated[1]:.0f}'} A, x k {k:.3f} at the site")
+
+
+def _code_current(a: Assessment, w) -> None:
+    m, rating, site = a.machine, a.rating, a.site
+    if site.standard != "NEMA" or not rating.power_w or not a.phases_ok:
+        return
+    hp = rating.power_w / 745.6998715822701
+    found = None
+    for volts in (a.connection.voltage_v, site.voltage_v):
+        found = nec.table_current(hp, volts, phases=m.phases,
+                                  synchronous=m.kind == "synchronous-motor",
+                                  power_factor=rating.power_factor or 1.0)
+        if found:
+            break
+    if found:
+        a.code_current_a, a.code_current_hp = found
+        if w is not None:
+            w.append(f"NEC table current: {hp:.2f} hp -> {a.code_current_hp:g} hp -> "
+                     f"{a.code_current_a:g} A; conductors 125 % = "
+                     f"{nec.CONDUCTOR_FACTOR * a.code_current_a:.1f} A")
+
+
+def _efficiency(a: Assessment) -> None:
+    rating, m = a.rating, a.machine
+    if m.kind != "induction-motor" or not rating.power_w or m.phases != 3:
+        return
+    kw = rating.power_w / 1000.0
+    f = rating.frequency_hz
+    if not (abs(f - 50) < 1 or abs(f - 60) < 1):
+        return
+    if rating.efficiency is not None:
+        a.efficiency_class = efficiency_class_of(rating.efficiency, kw, a.poles, f)
+    if m.efficiency_class is not None:
+        a.efficiency_class_minimum = minimum_efficiency(m.efficiency_class, kw, a.poles, f)
+
+
+def _service_factor(a: Assessment) -> None:
+    sf = a.rating.service_factor or a.machine.service_factor
+    a.service_factor = sf
+    clean = (not a.rerated and all(v >= 0.999 for v in a.factors.values())
+             and abs(a.tolerance.get("voltage_deviation", 0.0)) <= 0.05
+             and abs(a.frequency_ratio - 1.0) <= 0.01)
+    a.service_factor_at_site = sf if clean else 1.0
+
+
+def _star_delta(a: Assessment) -> None:
+    names = {(c.name or "").strip().lower(): c for c in a.rating.connections}
+    delta = next((c for n, c in names.items() if n in DELTA_NAMES), None)
+    star = next((c for n, c in names.items() if n in STAR_NAMES), None)
+    if delta is None or star is None or a.machine.phases != 3:
+        a.star_delta_possible = None
+        return
+    a.star_delta_possible = (a.connection is delta and abs(a.flux_ratio - 1.0) <= 0.10
+                             and abs(star.voltage_v / delta.voltage_v - math.sqrt(3.0)) < 0.1)
+
+
+def _generator(a: Assessment, w) -> None:
+    site = a.site
+    a.expected_speed_rpm = a.synchronous_speed_rpm
+    if a.available_apparent_power_va is not None:
+        a.full_load_current_a = current_physics.apparent_power_current(
+            a.available_apparent_power_va, a.supply_voltage_v, min(a.machine.phases, site.phases))
+        a.current_basis = "rated current"
+    if w is not None:
+        w.append(f"generator: shaft speed for {site.frequency_hz:g} Hz = 120 f / p = "
+                 f"{a.synchronous_speed_rpm:.0f} rpm; voltage at rated flux = "
+                 f"{a.rated_voltage_v:.0f} x {a.frequency_ratio:.3f} = "
+                 f"{a.rated_voltage_v * a.frequency_ratio:.0f} V")
+        if a.available_apparent_power_va is not None:
+            w.append(f"available = {a.rated_apparent_power_va / 1000:.1f} kVA x "
+                     f"{a.combined_factor:.3f} = {a.available_apparent_power_va / 1000:.1f} kVA; "
+                     f"I = S / (sqrt(3) V) = {a.full_load_current_a:.1f} A")

@@ -1,0 +1,478 @@
+"""Command line: parse options, call the engine, hand the result to a renderer.
+
+Heavy modules (pint, rich, the engine, renderers) are imported inside the commands that need
+them, so that a quick lookup starts fast.
+"""
+
+from __future__ import annotations
+
+import os
+import sys
+
+import click
+
+from . import __version__
+from .errors import InputError, InputErrors, MachinecheckError
+
+EXIT_OK, EXIT_PROBLEM, EXIT_INPUT = 0, 1, 2
+
+# One-off options -> the catalog/site key they fill, so errors can name the option.
+MACHINE_OPTIONS = {
+    "kind": "kind", "phases": "phases", "poles": "poles", "service_factor": "service_factor",
+    "code_letter": "code_letter", "cooling": "cooling", "max_speed": "max_speed",
+    "efficiency_class": "efficiency_class", "design_letter": "design_letter",
+}
+RATING_OPTIONS = {
+    "power": "power", "voltage": "voltage", "connection": "connection", "current": "current",
+    "frequency": "frequency", "speed": "speed", "efficiency": "efficiency",
+    "power_factor": "power_factor", "locked_rotor_current": "locked_rotor_current",
+}
+SITE_OPTIONS = {
+    "supply_voltage": "voltage", "supply_frequency": "frequency", "supply_phases": "phases",
+    "standard": "standard", "supply_unbalance": "unbalance",
+    "supply_voltage_range": "voltage_range", "altitude": "altitude", "ambient": "ambient",
+    "supply_system": "system",
+}
+LOAD_OPTIONS = {"load_type": "type", "load_power": "power"}
+
+
+def _fail(errors) -> None:
+    for error in errors:
+        click.echo(f"machinecheck: error: {error}", err=True)
+    sys.exit(EXIT_INPUT)
+
+
+def _report_errors(func):
+    """Turn project errors into one line each on stderr and exit 2; never a traceback."""
+    import functools
+
+    @functools.wraps(func)
+    def wrapper(*args, **kwargs):
+        try:
+            return func(*args, **kwargs)
+        except InputErrors as exc:
+            _fail(exc.errors)
+        except MachinecheckError as exc:
+            _fail([exc])
+        except KeyboardInterrupt:
+            click.echo("machinecheck: interrupted", err=True)
+            sys.exit(130)
+    return wrapper
+
+
+@click.group(context_settings={"help_option_names": ["-h", "--help"], "max_content_width": 100})
+@click.version_option(__version__, "--version", prog_name="machinecheck")
+def main():
+    """Check motor and generator nameplates against site supplies.
+
+    Run `machinecheck check` for the bundled demo fleet and sites.
+    """
+
+
+def _option_name(key: str | None, table: dict) -> str | None:
+    if key is None:
+        return None
+    leaf = key.split(".")[-1].split("[")[0]
+    for option, field in table.items():
+        if field == leaf:
+            return "--" + option.replace("_", "-")
+    return key
+
+
+def _oneoff_machine(values: dict):
+    from .catalog import catalog_from_data
+
+    machine = {"id": "one-off"}
+    for option, key in MACHINE_OPTIONS.items():
+        if values.get(option) is not None:
+            machine[key] = values[option]
+    rating = {}
+    for option, key in RATING_OPTIONS.items():
+        value = values.get(option)
+        if value not in (None, ()):
+            rating[key] = list(value) if isinstance(value, tuple) else value
+    for key in ("voltage", "current", "connection", "locked_rotor_current"):
+        if key in rating and len(rating[key]) == 1:
+            rating[key] = rating[key][0]
+    machine["rating"] = [rating]
+    load = {key: values[option] for option, key in LOAD_OPTIONS.items()
+            if values.get(option) is not None}
+    if load:
+        machine["load"] = load
+    table = {**MACHINE_OPTIONS, **RATING_OPTIONS, **{k: v for k, v in LOAD_OPTIONS.items()}}
+    try:
+        return catalog_from_data({"machine": [machine]}, "command line").machines
+    except InputErrors as exc:
+        raise InputErrors([InputError(e.message, key=_option_name(e.key, table))
+                           for e in exc.errors]) from None
+
+
+def _oneoff_site(values: dict):
+    from .catalog import sites_from_data
+
+    site = {"id": "supply"}
+    for option, key in SITE_OPTIONS.items():
+        if values.get(option) is not None:
+            site[key] = values[option]
+    try:
+        return sites_from_data({"site": [site]}, "command line")
+    except InputErrors as exc:
+        raise InputErrors([InputError(e.message, key=_option_name(e.key, SITE_OPTIONS))
+                           for e in exc.errors]) from None
+
+
+def _demo_path(name: str) -> str:
+    from importlib.resources import files
+
+    return str(files("machinecheck") / "catalogs" / name)
+
+
+def _load_inputs(catalogs, sites_file, values):
+    from .catalog import load_catalog, load_sites
+
+    machine_given = any(values.get(o) not in (None, ()) for o in
+                        (*MACHINE_OPTIONS, *RATING_OPTIONS, *LOAD_OPTIONS))
+    site_given = any(values.get(o) is not None for o in SITE_OPTIONS)
+    errors = []
+    machines = []
+    if machine_given:
+        if catalogs:
+            raise InputError("give machine options or CATALOG files, not both")
+        try:
+            machines = list(_oneoff_machine(values))
+        except InputErrors as exc:
+            errors += exc.errors
+    else:
+        for path in catalogs or ([] if site_given and not catalogs and False else
+                                 [_demo_path("fleet.toml")]):
+            try:
+                machines += list(load_catalog(path).machines)
+            except InputErrors as exc:
+                errors += exc.errors
+            except InputError as exc:
+                errors.append(exc)
+    if site_given:
+        if sites_file:
+            raise InputError("give supply options or --sites, not both")
+        try:
+            sites = list(_oneoff_site(values))
+        except InputErrors as exc:
+            errors += exc.errors
+            sites = []
+    else:
+        path = sites_file or _demo_path("sites.toml")
+        try:
+            sites = list(load_sites(path))
+        except InputErrors as exc:
+            errors += exc.errors
+            sites = []
+        except InputError as exc:
+            errors.append(exc)
+            sites = []
+    if errors:
+        raise InputErrors(errors)
+    seen = {}
+    for m in machines:
+        if m.id in seen:
+            raise InputError(f"duplicate machine id across catalogs (also in {seen[m.id]})",
+                             file=m.source, line=m.line, item=m.id, key="id")
+        seen[m.id] = m.source
+    return machines, sites
+
+
+def _select(items, wanted, what):
+    if not wanted:
+        return items
+    ids = {item.id for item in items}
+    missing = [w for w in wanted if w not in ids]
+    if missing:
+        import difflib
+
+        hints = []
+        for name in missing:
+            close = difflib.get_close_matches(name, sorted(ids), n=1)
+            hints.append(f"{name!r}" + (f" (did you mean {close[0]!r}?)" if close else ""))
+        raise InputError(f"no {what} with id {', '.join(hints)}", key=f"--{what}")
+    chosen = set(wanted)
+    return [item for item in items if item.id in chosen]
+
+
+def write_output(text: str, path: str, inputs) -> None:
+    """Write ``text`` to ``path`` atomically; never onto an input file, nothing left on error."""
+    import tempfile
+
+    target = os.path.abspath(path)
+    folder = os.path.dirname(target) or "."
+    if os.path.isdir(target):
+        raise InputError("is a directory, expected an output file name", file=path)
+    if not os.path.isdir(folder):
+        raise InputError(f"folder {folder!r} does not exist", file=path)
+    for source in inputs:
+        if source and os.path.exists(source) and os.path.exists(target) and os.path.samefile(
+                source, target):
+            raise InputError("refusing to overwrite an input file with the report", file=path)
+    handle, temporary = tempfile.mkstemp(prefix=".machinecheck-", suffix=".tmp", dir=folder)
+    try:
+        with os.fdopen(handle, "w", encoding="utf-8", newline="") as stream:
+            stream.write(text)
+        if os.path.exists(target):
+            os.chmod(temporary, os.stat(target).st_mode & 0o7777)
+        else:
+            umask = os.umask(0)
+            os.umask(umask)
+            os.chmod(temporary, 0o666 & ~umask)
+        os.replace(temporary, target)
+    except BaseException:
+        try:
+            os.unlink(temporary)
+        except OSError:
+            pass
+        raise
+
+
+def _machine_options(func):
+    options = [
+        click.option("--kind", help="induction-motor, synchronous-motor or synchronous-generator"),
+        click.option("--phases", type=int, help="machine phases, 1 or 3 (default 3)"),
+        click.option("--poles", type=int, help="number of poles (inferred from --speed if absent)"),
+        click.option("--power", help="rated output, e.g. '50 hp', '37 kW', '500 kVA'"),
+        click.option("--voltage", multiple=True, help="rated voltage; repeat for each connection"),
+        click.option("--connection", multiple=True, help="connection name per --voltage (delta, star...)"),
+        click.option("--current", multiple=True, help="rated current per --voltage"),
+        click.option("--frequency", help="rated frequency, e.g. '60 Hz'"),
+        click.option("--speed", help="rated full-load speed, e.g. '1775 rpm'"),
+        click.option("--efficiency", help="rated efficiency, e.g. 0.941 or '94.1 %'"),
+        click.option("--power-factor", "power_factor", help="rated power factor, e.g. 0.86"),
+        click.option("--service-factor", "service_factor", type=float, help="NEMA service factor"),
+        click.option("--code-letter", "code_letter", help="NEMA locked-rotor code letter"),
+        click.option("--design-letter", "design_letter", help="NEMA design letter A-D, IEC N/H"),
+        click.option("--locked-rotor-current", "locked_rotor_current", multiple=True,
+                     help="locked-rotor current per --voltage"),
+        click.option("--cooling", help="IEC 60034-6 cooling code (default IC411)"),
+        click.option("--max-speed", "max_speed", help="speed limit of machine or driven equipment"),
+        click.option("--efficiency-class", "efficiency_class", help="claimed IE class"),
+        click.option("--load-type", "load_type", help="centrifugal, constant-torque, constant-power"),
+        click.option("--load-power", "load_power", help="load power at the rated speed"),
+        click.option("--supply-voltage", "supply_voltage", help="site voltage, e.g. '400 V'"),
+        click.option("--supply-frequency", "supply_frequency", help="site frequency, e.g. '50 Hz'"),
+        click.option("--supply-phases", "supply_phases", type=int, help="site phases, 1, 2 or 3"),
+        click.option("--supply-system", "supply_system", help="wye, delta, split-phase, quadrature"),
+        click.option("--standard", help="tolerance rules: IEC or NEMA"),
+        click.option("--supply-unbalance", "supply_unbalance", help="voltage unbalance, e.g. '1.5 %'"),
+        click.option("--supply-voltage-range", "supply_voltage_range",
+                     help="measured band, e.g. '380-420 V'"),
+        click.option("--altitude", help="site altitude, e.g. '1800 m'"),
+        click.option("--ambient", help="site ambient, e.g. '45 degC'"),
+    ]
+    for option in reversed(options):
+        func = option(func)
+    return func
+
+
+@main.command()
+@click.argument("catalogs", nargs=-1, type=click.Path(dir_okay=True))
+@click.option("--sites", "sites_file", type=click.Path(), help="TOML file of site supplies")
+@click.option("--site", "site_ids", multiple=True, help="only this site id (repeatable)")
+@click.option("--machine", "machine_ids", multiple=True, help="only this machine id (repeatable)")
+@click.option("--format", "fmt", default="table", show_default=True,
+              type=click.Choice(["table", "json", "markdown", "html", "csv"]))
+@click.option("--output", "-o", type=click.Path(), help="write the report to this file")
+@click.option("--problems-only", is_flag=True, help="keep only pairs that are not compatible")
+@click.option("--explain", is_flag=True, help="show the working with numbers substituted")
+@click.option("--matrix", is_flag=True, help="add a machines x sites verdict matrix")
+@click.option("--strict", is_flag=True, help="exit 1 on conditional pairs too")
+@_machine_options
+@_report_errors
+def check(catalogs, sites_file, site_ids, machine_ids, fmt, output, problems_only, explain,
+          matrix, strict, **values):
+    """Check every machine in CATALOG files against every site (the demo when none given).
+
+    A one-off machine and supply can be given with the options below instead of files.
+    Exit status: 0 every pair fits, 1 a pair is incompatible, 2 bad input.
+    """
+    machines, sites = _load_inputs(catalogs, sites_file, values)
+    machines = _select(machines, machine_ids, "machine")
+    sites = _select(sites, site_ids, "site")
+    from .check import assess_all
+
+    progress = None
+    bar = None
+    if sys.stderr.isatty() and len(machines) * len(sites) > 2000:
+        bar = click.progressbar(length=len(machines), label="checking", file=sys.stderr)
+        bar.__enter__()
+
+        def progress():
+            bar.update(1)
+    try:
+        results = assess_all(machines, sites, explain=explain, progress=progress)
+    finally:
+        if bar is not None:
+            bar.__exit__(None, None, None)
+    failing = [a for a in results if a.verdict == "incompatible" or
+               (strict and a.verdict == "conditional")]
+    shown = [a for a in results if a.verdict != "compatible"] if problems_only else results
+    text = render(fmt, shown, explain=explain, matrix=matrix, sites=sites, machines=machines,
+                  to_terminal=output is None)
+    if output:
+        write_output(text, output, [m.source for m in machines] + [s.source for s in sites]
+                     + list(catalogs) + ([sites_file] if sites_file else []))
+        click.echo(f"wrote {len(shown)} results to {output}", err=True)
+    else:
+        click.echo(text, nl=False)
+    sys.exit(EXIT_PROBLEM if failing else EXIT_OK)
+
+
+def render(fmt, results, *, explain=False, matrix=False, sites=(), machines=(), to_terminal=True):
+    import importlib
+    import shutil
+
+    module = importlib.import_module(f".report.{ {'json': 'json_', 'csv': 'csv_'}.get(fmt, fmt) }",
+                                     __package__)
+    width = shutil.get_terminal_size((100, 24)).columns
+    color = None
+    if fmt == "table":
+        color = bool(to_terminal and sys.stdout.isatty() and "NO_COLOR" not in os.environ)
+    return module.render(results, explain=explain, matrix=matrix, sites=sites, machines=machines,
+                         width=width, color=color)
+
+
+# ----------------------------------------------------------------------------- lookups
+
+def _value(text, kind, option):
+    from . import units
+
+    try:
+        return units.parse(_number_or_text(text), kind)
+    except InputError as exc:
+        raise InputError(exc.message, key=option) from None
+
+
+def _number_or_text(text):
+    try:
+        return float(text)
+    except (TypeError, ValueError):
+        return text
+
+
+@main.command()
+@click.option("--poles", type=int, help="number of poles (or give --rated-speed)")
+@click.option("--frequency", required=True, help="supply frequency, e.g. 50 or '50 Hz'")
+@click.option("--rated-speed", "rated_speed", help="nameplate speed, e.g. '1175 rpm'")
+@click.option("--rated-frequency", "rated_frequency", help="frequency of the nameplate speed")
+@_report_errors
+def speed(poles, frequency, rated_speed, rated_frequency):
+    """Synchronous speed, and the slip-adjusted speed at a new frequency."""
+    from .physics import speed as sp
+
+    f = _value(frequency, "frequency", "--frequency")
+    f_rated = _value(rated_frequency, "frequency", "--rated-frequency") if rated_frequency else f
+    n_rated = _value(rated_speed, "speed", "--rated-speed") if rated_speed else None
+    if poles is None:
+        if n_rated is None:
+            raise InputError("give --poles, or --rated-speed to infer them", key="--poles")
+        try:
+            poles = sp.poles_from_speed(n_rated, f_rated)
+        except MachinecheckError as exc:
+            raise InputError(str(exc), key="--rated-speed") from None
+    try:
+        n_s = sp.synchronous_speed(f, poles)
+    except MachinecheckError as exc:
+        raise InputError(str(exc), key="--poles") from None
+    click.echo(f"synchronous speed {n_s:.0f} rpm  ({poles} poles at {f:g} Hz: 120 x {f:g} / {poles})")
+    if n_rated is not None:
+        n_s_rated = sp.synchronous_speed(f_rated, poles)
+        slip_rpm = n_s_rated - n_rated
+        if slip_rpm <= 0:
+            raise InputError(f"rated speed {n_rated:g} rpm is not below synchronous "
+                             f"{n_s_rated:g} rpm", key="--rated-speed")
+        n = sp.running_speed(n_s, slip_rpm)
+        click.echo(f"running speed     {n:.0f} rpm ±{0.2 * slip_rpm:.0f}  (rated torque, constant "
+                   f"V/f: slip {slip_rpm:.0f} rpm kept; {100 * slip_rpm / n_s:.1f} % at {f:g} Hz)")
+
+
+@main.command()
+@click.option("--speed", "speed_text", required=True, help="nameplate speed, e.g. '1460 rpm'")
+@click.option("--frequency", required=True, help="rated frequency, e.g. '50 Hz'")
+@_report_errors
+def poles(speed_text, frequency):
+    """Pole count, synchronous speed and slip from a nameplate speed."""
+    from .physics import speed as sp
+
+    n = _value(speed_text, "speed", "--speed")
+    f = _value(frequency, "frequency", "--frequency")
+    try:
+        p = sp.poles_from_speed(n, f)
+    except MachinecheckError as exc:
+        raise InputError(str(exc), key="--speed") from None
+    n_s = sp.synchronous_speed(f, p)
+    click.echo(f"{p} poles  (synchronous {n_s:.0f} rpm at {f:g} Hz; slip {n_s - n:.0f} rpm = "
+               f"{100 * sp.slip(n_s, n):.1f} %)")
+
+
+@main.command()
+@click.option("--power", required=True, help="rated output, e.g. '22 kW', '30 hp', or '500 kVA'")
+@click.option("--voltage", required=True, help="line-to-line voltage, e.g. '400 V'")
+@click.option("--phases", type=click.Choice(["1", "3"]), default="3", show_default=True)
+@click.option("--efficiency", help="full-load efficiency, e.g. 0.92 or '92 %'")
+@click.option("--power-factor", "power_factor", help="full-load power factor, e.g. 0.85")
+@_report_errors
+def current(power, voltage, phases, efficiency, power_factor):
+    """Full-load current from output, voltage, efficiency and power factor."""
+    from .physics import current as cp
+
+    volts = _value(voltage, "voltage", "--voltage")
+    phase_count = int(phases)
+    root = "sqrt(3) x " if phase_count == 3 else ""
+    if isinstance(_number_or_text(power), str) and power.strip().lower().endswith("va"):
+        apparent = _value(power, "apparent_power", "--power")
+        amps = cp.apparent_power_current(apparent, volts, phase_count)
+        click.echo(f"{amps:.1f} A  (S / ({root}V) = {apparent:.0f} / ({root}{volts:g}))")
+        return
+    watts = _value(power, "power", "--power")
+    missing = [name for name, v in (("--efficiency", efficiency),
+                                    ("--power-factor", power_factor)) if v is None]
+    if missing:
+        raise InputError(f"give {' and '.join(missing)} from the nameplate (the current of a "
+                         "shaft output depends on them)", key=missing[0])
+    eta = _value(efficiency, "fraction", "--efficiency")
+    pf = _value(power_factor, "fraction", "--power-factor")
+    try:
+        amps = cp.full_load_current(watts, volts, eta, pf, phase_count)
+    except MachinecheckError as exc:
+        raise InputError(str(exc), key="--efficiency") from None
+    click.echo(f"{amps:.1f} A  (P / ({root}V x eta x PF) = {watts:.0f} / ({root}{volts:g} x "
+               f"{eta:g} x {pf:g}); {phase_count}-phase)")
+
+
+@main.command()
+@click.argument("files", nargs=-1, required=True, type=click.Path(dir_okay=True))
+@_report_errors
+def validate(files):
+    """Validate catalog, inventory and site files; report every problem."""
+    from .catalog import catalog_from_data, load_catalog, parse_toml, read_text, sites_from_data
+
+    errors = []
+    for path in files:
+        try:
+            if path.lower().endswith(".csv"):
+                count = len(load_catalog(path).machines)
+                click.echo(f"ok: {path}: {count} machines")
+                continue
+            text = read_text(path)
+            data = parse_toml(text, path)
+            if "site" in data and "machine" not in data:
+                count = len(sites_from_data(data, path, text))
+                click.echo(f"ok: {path}: {count} sites")
+            else:
+                count = len(catalog_from_data(data, path, text).machines)
+                click.echo(f"ok: {path}: {count} machines")
+        except InputErrors as exc:
+            errors += exc.errors
+        except InputError as exc:
+            errors.append(exc)
+    if errors:
+        _fail(errors)
+
+
+if __name__ == "__main__":  # pragma: no cover
+    main()

@@ -1,0 +1,68 @@
+"""Driven loads: how torque, power, flow and head follow the shaft speed."""
+
+from __future__ import annotations
+
+from ..errors import DomainError
+
+LOAD_TYPES = ("centrifugal", "constant-torque", "constant-power")
+
+
+def torque_ratio(load_type: str, speed_ratio: float) -> float:
+    """Load torque relative to its value at the reference speed [-].
+
+    centrifugal: (n / n0)**2; constant-torque: 1; constant-power: n0 / n.
+
+    References
+    ----------
+    .. [1] Pump and fan affinity laws (torque ~ n^2), e.g. Karassik et al., *Pump Handbook*,
+       ch. 2; constant-torque and constant-power loads: common practice.
+    """
+    if not speed_ratio > 0:
+        raise DomainError(f"speed ratio must be positive, got {speed_ratio!r}")
+    if load_type == "centrifugal":
+        return speed_ratio ** 2
+    if load_type == "constant-torque":
+        return 1.0
+    if load_type == "constant-power":
+        return 1.0 / speed_ratio
+    raise DomainError(f"load type must be one of {', '.join(LOAD_TYPES)}, got {load_type!r}")
+
+
+def power_ratio(load_type: str, speed_ratio: float) -> float:
+    """Load power relative to its value at the reference speed [-] (torque ratio x speed ratio).
+
+    References
+    ----------
+    .. [1] Affinity laws: P ~ n^3 (60 -> 50 Hz: x 0.579; 50 -> 60 Hz: x 1.728).
+    """
+    return torque_ratio(load_type, speed_ratio) * speed_ratio
+
+
+def affinity(speed_ratio: float) -> tuple[float, float, float]:
+    """Flow, head and power ratios of a centrifugal pump or fan, same impeller [-].
+
+    Q ~ n, H ~ n^2, P ~ n^3, efficiency taken as unchanged.
+
+    References
+    ----------
+    .. [1] Affinity laws, e.g. Karassik et al., *Pump Handbook*, ch. 2. Worked case (affinity
+       tutorial): 1750 -> 1450 rpm gives 0.8286 / 0.6865 / 0.5689.
+    """
+    if not speed_ratio > 0:
+        raise DomainError(f"speed ratio must be positive, got {speed_ratio!r}")
+    return speed_ratio, speed_ratio ** 2, speed_ratio ** 3
+
+
+def impeller_trim(head_ratio_wanted: float, speed_ratio: float) -> float:
+    """Impeller diameter ratio restoring the original head at a new speed [-].
+
+    At constant flow coefficient, H ~ (n D)^2, so D_new / D_old = sqrt(H_wanted) / (n / n0).
+
+    References
+    ----------
+    .. [1] Affinity laws in diameter (common practice; confirm with the pump maker, trims above
+       ~10-15 % do not follow them).
+    """
+    if not (speed_ratio > 0 and head_ratio_wanted > 0):
+        raise DomainError("ratios must be positive")
+    return head_ratio_wanted ** 0.5 / speed_ratio

@@ -1,0 +1,149 @@
+"""Synchronous speed, pole count, slip and the running speed at another supply."""
+
+from __future__ import annotations
+
+import math
+
+from ..errors import DomainError
+
+#: Largest full-load slip accepted when inferring poles; above it the plate is inconsistent.
+MAX_RATED_SLIP = 0.10
+
+
+def synchronous_speed(frequency_hz: float, poles: int) -> float:
+    """Synchronous speed of the rotating field.
+
+    n_s = 120 f / p
+
+    Parameters
+    ----------
+    frequency_hz : supply frequency [Hz]
+    poles : number of poles (not pole pairs), even and positive [-]
+
+    Returns
+    -------
+    float : synchronous speed [rpm]
+
+    References
+    ----------
+    .. [1] IEC 60034-1, definitions; NEMA MG 1 Part 1. Any machines text, e.g. S. J. Chapman,
+       *Electric Machinery Fundamentals*, ch. 4 (n_sync = 120 f_e / P).
+    """
+    if not (isinstance(poles, int) and poles > 0 and poles % 2 == 0):
+        raise DomainError(f"poles must be a positive even number, got {poles!r}")
+    if not (frequency_hz > 0 and math.isfinite(frequency_hz)):
+        raise DomainError(f"frequency must be positive, got {frequency_hz!r} Hz")
+    return 120.0 * frequency_hz / poles
+
+
+def poles_from_speed(rated_speed_rpm: float, frequency_hz: float, *,
+                     max_slip: float = MAX_RATED_SLIP, synchronous: bool = False) -> int:
+    """Pole count implied by a rated speed: the smallest synchronous speed above it.
+
+    Parameters
+    ----------
+    rated_speed_rpm : nameplate full-load speed [rpm]
+    frequency_hz : rated frequency of that speed [Hz]
+    max_slip : largest plausible full-load slip [-]
+    synchronous : True for synchronous machines, whose rated speed equals n_s exactly
+
+    Returns
+    -------
+    int : number of poles
+
+    Raises
+    ------
+    DomainError : when the implied slip is <= 0 (induction) or above ``max_slip``, or a
+        synchronous speed is not 120 f / p for an even p.
+
+    References
+    ----------
+    .. [1] Common practice (p = even number giving the next synchronous speed above the rated
+       speed); e.g. 1450 rpm at 50 Hz -> 4 poles, 1170 rpm at 60 Hz -> 6 poles.
+    """
+    if not (rated_speed_rpm > 0 and math.isfinite(rated_speed_rpm)):
+        raise DomainError(f"rated speed must be positive, got {rated_speed_rpm!r} rpm")
+    if not (frequency_hz > 0 and math.isfinite(frequency_hz)):
+        raise DomainError(f"frequency must be positive, got {frequency_hz!r} Hz")
+    ratio = 120.0 * frequency_hz / rated_speed_rpm
+    if synchronous:
+        poles = round(ratio / 2) * 2
+        if poles < 2 or abs(120.0 * frequency_hz / poles - rated_speed_rpm) > 0.005 * rated_speed_rpm:
+            raise DomainError(
+                f"{rated_speed_rpm:g} rpm is not a synchronous speed at {frequency_hz:g} Hz "
+                f"(120 f / p for an even p)")
+        return poles
+    poles = 2 * math.floor(ratio / 2 + 1e-12)
+    if poles < 2:
+        raise DomainError(
+            f"{rated_speed_rpm:g} rpm is at or above the 2-pole synchronous speed "
+            f"{60 * frequency_hz:g} rpm at {frequency_hz:g} Hz")
+    n_s = 120.0 * frequency_hz / poles
+    s = (n_s - rated_speed_rpm) / n_s
+    if s <= 0:
+        raise DomainError(
+            f"{rated_speed_rpm:g} rpm gives no slip below {n_s:g} rpm synchronous at {frequency_hz:g} Hz")
+    if s > max_slip:
+        raise DomainError(
+            f"{rated_speed_rpm:g} rpm implies {100 * s:.1f} % slip below {n_s:g} rpm "
+            f"({poles} poles at {frequency_hz:g} Hz), above {100 * max_slip:.0f} %: check speed, "
+            f"frequency or poles")
+    return poles
+
+
+def slip(synchronous_speed_rpm: float, speed_rpm: float) -> float:
+    """Per-unit slip s = (n_s - n) / n_s [-].
+
+    References
+    ----------
+    .. [1] IEC 60034-1 definitions; Chapman, *Electric Machinery Fundamentals*, eq. (6-4).
+    """
+    if not synchronous_speed_rpm > 0:
+        raise DomainError(f"synchronous speed must be positive, got {synchronous_speed_rpm!r}")
+    return (synchronous_speed_rpm - speed_rpm) / synchronous_speed_rpm
+
+
+def running_speed(synchronous_speed_rpm: float, rated_slip_rpm: float, *,
+                  torque_ratio: float = 1.0, flux_ratio: float = 1.0) -> float:
+    """Running speed of an induction motor in the low-slip region.
+
+    In the linear part of the torque-slip curve, torque is proportional to slip frequency and to
+    the square of the air-gap flux, so the slip in rpm at the site is
+
+        slip_rpm = rated_slip_rpm * (T / T_rated) / k**2,   n = n_s - slip_rpm
+
+    At constant V/f (k = 1) and rated torque the slip in rpm is unchanged by a frequency change.
+
+    Parameters
+    ----------
+    synchronous_speed_rpm : synchronous speed at the site frequency [rpm]
+    rated_slip_rpm : n_s - n_rated on the rated supply [rpm]
+    torque_ratio : load torque over rated torque [-]
+    flux_ratio : V/f at the site over rated V/f, k [-]
+
+    Returns
+    -------
+    float : shaft speed [rpm]
+
+    References
+    ----------
+    .. [1] NEMA MG 1 12.44.2 (torque approximately proportional to V^2 / f^2).
+    .. [2] Chapman, *Electric Machinery Fundamentals*, sec. 6.5 (torque ~ slip at low slip).
+    """
+    if not flux_ratio > 0:
+        raise DomainError(f"flux ratio must be positive, got {flux_ratio!r}")
+    if torque_ratio < 0:
+        raise DomainError(f"torque ratio must not be negative, got {torque_ratio!r}")
+    return synchronous_speed_rpm - rated_slip_rpm * torque_ratio / flux_ratio ** 2
+
+
+def shaft_torque(power_w: float, speed_rpm: float) -> float:
+    """Shaft torque T = P / omega [N*m] from power [W] and speed [rpm].
+
+    References
+    ----------
+    .. [1] Definition of mechanical power, P = T * omega (T [N*m] = 9550 P [kW] / n [rpm]).
+    """
+    if not speed_rpm > 0:
+        raise DomainError(f"speed must be positive, got {speed_rpm!r} rpm")
+    return power_w / (speed_rpm * math.pi / 30.0)

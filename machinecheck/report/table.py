@@ -1,0 +1,82 @@
+"""Terminal renderer: a rich table per site, a summary line and the caution."""
+
+from __future__ import annotations
+
+import io
+import os
+
+from . import CAUTION
+from .data import driving_findings, summary_counts, worst_first
+
+_STYLE = {"compatible": "green", "conditional": "yellow", "incompatible": "bold red"}
+_MARK = {"compatible": "compatible", "conditional": "conditional",
+         "incompatible": "incompatible"}
+
+
+def _num(value, fmt, empty="-"):
+    return empty if value is None else format(value, fmt)
+
+
+def _safe(text: str, limit: int = 400) -> str:
+    """User text shown literally: control characters replaced, very long text cut."""
+    cleaned = "".join(ch if ch.isprintable() or ch == "\n" else "?" for ch in str(text))
+    return cleaned if len(cleaned) <= limit else cleaned[: limit - 1] + "…"
+
+
+def render(assessments, *, explain=False, width=None, color=None, sites=(), **_) -> str:
+    from rich.console import Console
+    from rich.table import Table
+    from rich.text import Text
+
+    buffer = io.StringIO()
+    no_color = color is False or "NO_COLOR" in os.environ
+    console = Console(file=buffer, width=width or 120, markup=False, highlight=False,
+                      no_color=no_color, force_terminal=not no_color and color is True,
+                      emoji=False)
+    by_site: dict[str, list] = {}
+    site_of = {}
+    for a in assessments:
+        by_site.setdefault(a.site.id, []).append(a)
+        site_of[a.site.id] = a.site
+    for site_id, group in by_site.items():
+        s = site_of[site_id]
+        title = (f"{_safe(s.id)} - {_safe(s.name)}: " if s.name else f"{_safe(s.id)}: ")
+        title += (f"{s.voltage_v:g} V {s.frequency_hz:g} Hz, {s.phases} phase"
+                  f"{'s' if s.phases > 1 else ''}, {s.standard}")
+        table = Table(title=title, title_justify="left", show_lines=True, expand=False)
+        table.add_column("machine", overflow="fold", max_width=16)
+        table.add_column("verdict")
+        table.add_column("n_s rpm", justify="right")
+        table.add_column("speed rpm", justify="right")
+        table.add_column("output kW", justify="right")
+        table.add_column("FLC A", justify="right")
+        table.add_column("findings", overflow="fold", ratio=1)
+        for a in worst_first(group):
+            found = driving_findings(a)
+            lines = [f"{'✗' if f.severity == 'problem' else '!'} {f.message}" for f in found]
+            if not lines:
+                lines = [f.message for f in a.findings if f.code == "connection"] or ["fits as rated"]
+            if explain:
+                lines += ["working:"] + [f"  {line}" for line in a.working]
+            speed = _num(a.expected_speed_rpm, ".0f")
+            if a.speed_band_rpm is not None and a.expected_speed_rpm is not None:
+                speed += f" ±{a.speed_band_rpm:.0f}"
+            output = "-" if a.available_power_w is None else (
+                f"{a.available_power_w / 1000:.1f} / {a.rated_power_w / 1000:.1f}")
+            if a.machine.is_generator and a.available_apparent_power_va is not None:
+                output = (f"{a.available_apparent_power_va / 1000:.0f} / "
+                          f"{a.rated_apparent_power_va / 1000:.0f} kVA")
+            table.add_row(Text(_safe(a.machine.id)),
+                          Text(_MARK[a.verdict], style=_STYLE[a.verdict]),
+                          f"{a.synchronous_speed_rpm:.0f}", speed, output,
+                          _num(a.full_load_current_a, ".1f"),
+                          Text(_safe("\n".join(lines), 4000)))
+        console.print(table)
+    counts = summary_counts(assessments)
+    total = {v: sum(c[v] for c in counts.values()) for v in _MARK}
+    console.print(Text(
+        f"{len(assessments)} pairs: {total['compatible']} compatible, {total['conditional']} "
+        f"conditional, {total['incompatible']} incompatible. Output is available / rated; speed "
+        "at full available load (or the driven load) with the slip tolerance."))
+    console.print(Text(CAUTION, style="dim"))
+    return buffer.getvalue()

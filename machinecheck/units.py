@@ -1,0 +1,179 @@
+"""The one unit registry of machinecheck, and fast parsing of quantity strings to SI floats.
+
+Quantities arrive as strings with a unit ("75 kW", "100 hp", "1780 rpm", "45 degC") or as bare
+numbers in the documented default unit of their kind. Inside the project every value is a plain
+float in the internal unit of its kind (SI, with rpm for shaft speed and degC for temperature).
+
+pint is the only source of unit definitions, but building its registry costs a few tenths of a
+second and parsing a string costs ~150 us, so: the number is split from the unit with a regular
+expression, each distinct (unit, kind) pair is converted by pint once and its scale and offset
+cached, and a bare number or the kind's default unit never builds the registry at all.
+"""
+
+from __future__ import annotations
+
+import math
+import re
+
+from .errors import InputError
+
+#: kind -> (internal unit, default unit for bare numbers, scale of the default unit to internal,
+#: a reference unit of the same dimension for pint checks, what to say in errors)
+KINDS = {
+    "power": ("W", "kW", 1000.0, "W", "a power such as '75 kW' or '100 hp'"),
+    "apparent_power": ("VA", "kVA", 1000.0, "VA", "an apparent power such as '500 kVA'"),
+    "voltage": ("V", "V", 1.0, "V", "a voltage such as '400 V' or '4.16 kV'"),
+    "current": ("A", "A", 1.0, "A", "a current such as '62 A'"),
+    "frequency": ("Hz", "Hz", 1.0, "Hz", "a frequency such as '50 Hz'"),
+    "speed": ("rpm", "rpm", 1.0, "rpm", "a shaft speed such as '1460 rpm'"),
+    "length": ("m", "m", 1.0, "m", "an altitude such as '1650 m' or '5400 ft'"),
+    "temperature": ("degC", "degC", 1.0, "degC", "a temperature such as '45 degC'"),
+    "fraction": ("", "", 1.0, "", "a fraction such as 0.86 or '86 %'"),
+    "percent": ("", "%", 0.01, "", "a percentage such as '1.2 %'"),
+    "torque": ("N*m", "N*m", 1.0, "N*m", "a torque such as '240 N*m'"),
+}
+
+# Spellings found on nameplates that pint does not read, or reads as something else ("PS" would
+# be a petasiemens, "KW" a kelvin-watt).
+_ALIASES = {
+    "r/min": "rpm", "rev/min": "rpm", "RPM": "rpm", "Rpm": "rpm", "min-1": "1/min",
+    "min^-1": "1/min", "min⁻¹": "1/min", "1/min": "1/min", "%": "percent", "°C": "degC",
+    "℃": "degC", "°F": "degF", "C": "degC", "F": "degF", "CV": "metric_horsepower",
+    "cv": "metric_horsepower", "PS": "metric_horsepower", "HP": "hp", "Hp": "hp", "KW": "kW",
+    "Kw": "kW", "kw": "kW", "KV": "kV", "kv": "kV", "v": "V", "a": "A", "HZ": "Hz", "hz": "Hz",
+    "KVA": "kVA", "kva": "kVA", "MVA": "MVA", "Nm": "N*m", "N.m": "N*m", "N m": "N*m",
+    "lb-ft": "lbf*ft", "lbft": "lbf*ft", "lb ft": "lbf*ft", "lbf ft": "lbf*ft",
+}
+
+_NUMBER = re.compile(r"\s*([-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?)\s*(.*?)\s*$")
+
+_registry = None
+_conversions: dict[tuple[str, str], tuple[float, float] | str] = {}
+
+
+def registry():
+    """Return the project's pint UnitRegistry, building it on first use."""
+    global _registry
+    if _registry is None:
+        import pint
+
+        try:
+            _registry = pint.UnitRegistry(cache_folder=":auto:")
+        except Exception:  # an unwritable cache folder must not stop the tool
+            _registry = pint.UnitRegistry()
+    return _registry
+
+
+def _conversion(unit: str, kind: str) -> tuple[float, float] | str:
+    """Scale and offset taking ``unit`` to the internal unit of ``kind``, or an error text."""
+    key = (unit, kind)
+    cached = _conversions.get(key)
+    if cached is not None:
+        return cached
+    internal, default, default_scale, _, _ = KINDS[kind]
+    if unit == default:
+        result: tuple[float, float] | str = (default_scale, 0.0)
+    elif unit == internal and kind != "percent":
+        result = (1.0, 0.0)
+    else:
+        result = _pint_conversion(_ALIASES.get(unit, unit), kind)
+    _conversions[key] = result
+    return result
+
+
+def _pint_conversion(unit: str, kind: str) -> tuple[float, float] | str:
+    import pint
+
+    ureg = registry()
+    internal = KINDS[kind][0]
+    try:
+        parsed = ureg.parse_units(unit)
+    except (pint.errors.PintError, AttributeError, TypeError, ValueError, SyntaxError):
+        return f"unknown unit {unit!r}"
+    except Exception:  # pint's tokenizer raises assorted errors on garbage
+        return f"unknown unit {unit!r}"
+    root_text = str(ureg.get_root_units(parsed)[1])
+    angular = "radian" in root_text or "revolution" in str(parsed)
+    if kind == "speed" and not angular:
+        target = ureg.parse_units("1/min")  # min^-1 on a plate means revolutions per minute
+    elif kind == "frequency" and angular:
+        return f"{unit!r} is a shaft speed, not a frequency"
+    else:
+        target = ureg.parse_units(internal) if internal else ureg.dimensionless
+    if parsed.dimensionality != target.dimensionality:
+        return f"{unit!r} is not a unit of {kind.replace('_', ' ')}"
+    try:
+        zero = ureg.Quantity(0.0, parsed).to(target).magnitude
+        one = ureg.Quantity(1.0, parsed).to(target).magnitude
+    except pint.errors.PintError:
+        return f"{unit!r} cannot be converted to {internal or 'a ratio'}"
+    return (float(one - zero), float(zero))
+
+
+def split_number(text: str) -> tuple[float, str] | None:
+    """Split '75 kW' into (75.0, 'kW'); None when the text does not start with a number."""
+    match = _NUMBER.match(text)
+    if match is None:
+        return None
+    return float(match.group(1)), match.group(2)
+
+
+def parse(value, kind: str) -> float:
+    """Parse a quantity (string with unit, or bare number in the default unit) to an SI float.
+
+    Parameters
+    ----------
+    value : str, int or float
+        "75 kW", "60Hz", "45 degC", or a bare number in the default unit of ``kind``.
+    kind : str
+        One of :data:`KINDS`.
+
+    Returns
+    -------
+    float
+        The value in the internal unit of ``kind`` (W, VA, V, A, Hz, rpm, m, degC, ratio, N*m).
+
+    Raises
+    ------
+    InputError
+        For text that is not a number with a unit of this kind, or a non-finite number.
+    """
+    _, default, default_scale, _, expected = KINDS[kind]
+    if isinstance(value, bool):
+        raise InputError(f"expected {expected}, got {value!r}")
+    if isinstance(value, (int, float)):
+        number = float(value) * default_scale
+        if not math.isfinite(number):
+            raise InputError(f"expected a finite number, got {value!r}")
+        return number
+    if not isinstance(value, str):
+        raise InputError(f"expected {expected}, got {type(value).__name__} {value!r}")
+    split = split_number(value)
+    if split is None:
+        raise InputError(f"expected {expected}, got {value!r}")
+    number, unit = split
+    conversion = _conversion(unit, kind)
+    if isinstance(conversion, str):
+        raise InputError(f"{conversion}: expected {expected}, got {value!r}")
+    scale, offset = conversion
+    result = number * scale + offset
+    if not math.isfinite(result):
+        raise InputError(f"expected a finite number, got {value!r}")
+    return result
+
+
+def to_unit(value_si: float, kind: str, unit: str) -> float:
+    """Convert an internal-unit float of ``kind`` to ``unit`` (for output)."""
+    conversion = _conversion(unit, kind)
+    if isinstance(conversion, str):
+        raise InputError(conversion)
+    scale, offset = conversion
+    return (value_si - offset) / scale
+
+
+KW_PER_HP = 0.745699872  # mechanical horsepower, 550 ft*lbf/s (pint's definition)
+
+
+def kw_to_hp(power_kw: float) -> float:
+    """Mechanical horsepower from kilowatts (1 hp = 745.7 W)."""
+    return power_kw / KW_PER_HP
