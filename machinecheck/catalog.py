@@ -400,7 +400,7 @@ def _machine(entry, index, name, locator, errors, seen) -> Machine | None:
         max_speed_rpm=max_speed, code_letter=code_letter, design_letter=design_letter,
         cooling=cooling, duty=duty, rated_ambient_degc=rated_ambient,
         rated_altitude_m=rated_altitude, prime_mover_speed_rpm=prime_mover_speed, load=load,
-        source=name, line=f.locator.line(*f.base))
+        source=name)
 
 
 def _voltages(f, raw, key, sub):
@@ -533,8 +533,7 @@ def _rating(f, raw, r_index, kind, phases) -> Rating | None:
     return Rating(frequency_hz=frequency, connections=connections, power_w=power,
                   apparent_power_va=apparent, speed_rpm=speed, power_factor=power_factor,
                   efficiency=efficiency, service_factor=service_factor,
-                  locked_rotor_current_a=lrc, starting_current_ratio=ratio,
-                  line=f.locator.line(*(f.base + sub)))
+                  locked_rotor_current_a=lrc, starting_current_ratio=ratio)
 
 
 def _load(f, raw, kind) -> Load | None:
@@ -717,5 +716,4 @@ def _site(entry, index, name, locator, errors, seen) -> Site | None:
     return Site(id=site_id, name=site_name, frequency_hz=frequency, voltage_v=voltage,
                 phases=phases, system=system, standard=standard, voltage_range_v=voltage_range,
                 unbalance=unbalance, line_voltages_v=line_voltages, altitude_m=altitude,
-                ambient_degc=ambient, min_efficiency_class=min_class, source=name,
-                line=locator.line(*base))
+                ambient_degc=ambient, min_efficiency_class=min_class, source=name)

@@ -143,8 +143,7 @@ def _load_inputs(catalogs, sites_file, values):
         except InputErrors as exc:
             errors += exc.errors
     else:
-        for path in catalogs or ([] if site_given and not catalogs and False else
-                                 [_demo_path("fleet.toml")]):
+        for path in catalogs or [_demo_path("fleet.toml")]:
             try:
                 machines += list(load_catalog(path).machines)
             except InputErrors as exc:
@@ -175,7 +174,7 @@ def _load_inputs(catalogs, sites_file, values):
     for m in machines:
         if m.id in seen:
             raise InputError(f"duplicate machine id across catalogs (also in {seen[m.id]})",
-                             file=m.source, line=m.line, item=m.id, key="id")
+                             file=m.source, item=m.id, key="id")
         seen[m.id] = m.source
     return machines, sites
 
@@ -199,6 +198,7 @@ def _select(items, wanted, what):
 
 def write_output(text: str, path: str, inputs) -> None:
     """Write ``text`` to ``path`` atomically; never onto an input file, nothing left on error."""
+    import contextlib
     import tempfile
 
     target = os.path.abspath(path)
@@ -222,11 +222,9 @@ def write_output(text: str, path: str, inputs) -> None:
             os.umask(umask)
             os.chmod(temporary, 0o666 & ~umask)
         os.replace(temporary, target)
-    except BaseException:
-        try:
+    except BaseException:  # also Ctrl-C: leave no partial file behind
+        with contextlib.suppress(OSError):
             os.unlink(temporary)
-        except OSError:
-            pass
         raise
 
 

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import bisect
+import functools
 import math
 
 from ..errors import DomainError
@@ -66,6 +67,7 @@ def _check_class(efficiency_class: str) -> str:
     return name
 
 
+@functools.lru_cache(maxsize=4096)
 def minimum_efficiency(efficiency_class: str, power_kw: float, poles: int,
                        frequency_hz: float) -> float | None:
     """Nominal minimum full-load efficiency of an IE class [-], or None where not tabulated.
@@ -110,6 +112,7 @@ def minimum_efficiency(efficiency_class: str, power_kw: float, poles: int,
     raise DomainError(f"efficiency classes are defined at 50 and 60 Hz, got {frequency_hz:g} Hz")
 
 
+@functools.lru_cache(maxsize=4096)
 def efficiency_class_of(efficiency: float, power_kw: float, poles: int,
                         frequency_hz: float) -> str | None:
     """Highest IE class whose minimum the efficiency meets; None below IE1 or out of scope.

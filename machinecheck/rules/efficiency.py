@@ -10,12 +10,12 @@ def check(a) -> None:
     if m.kind != "induction-motor":
         return
     minimum = a.efficiency_class_minimum
-    if m.efficiency_class and minimum is not None and r.efficiency is not None:
-        if r.efficiency + 1e-9 < minimum:
-            a.add("efficiency-below-class", "warning",
-                  f"plate efficiency {100 * r.efficiency:.1f} % is below the "
-                  f"{m.efficiency_class} minimum {100 * minimum:.1f} % (IEC 60034-30-1, "
-                  f"{r.frequency_hz:g} Hz, {a.poles} poles)")
+    if (m.efficiency_class and minimum is not None and r.efficiency is not None
+            and r.efficiency + 1e-9 < minimum):
+        a.add("efficiency-below-class", "warning",
+              f"plate efficiency {100 * r.efficiency:.1f} % is below the "
+              f"{m.efficiency_class} minimum {100 * minimum:.1f} % (IEC 60034-30-1, "
+              f"{r.frequency_hz:g} Hz, {a.poles} poles)")
     required = site.min_efficiency_class
     if required is None or m.phases != 3:
         return  # the class tables used here are for three-phase motors

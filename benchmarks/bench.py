@@ -1,0 +1,86 @@
+"""Performance ratios of machinecheck, each measured side by side in one run.
+
+    python benchmarks/bench.py            # full run (10,000 and 100,000 machines)
+    python benchmarks/bench.py --smoke    # quick check for CI (small sizes, no targets enforced)
+
+Ratios, not seconds: the machines are noisy. See docs/performance.md for the method.
+"""
+
+from __future__ import annotations
+
+import argparse
+import os
+import statistics
+import subprocess
+import sys
+import tempfile
+import time
+
+sys.path.insert(0, os.path.dirname(__file__))
+from generate import SITES, catalog
+
+PY = sys.executable
+CLI = [PY, "-m", "machinecheck.cli"]
+
+
+def timed(cmd, repeat=3, env=None):
+    """Median wall time of a command, and the peak RSS (kB) of its last run."""
+    times = []
+    peak = 0
+    for _ in range(repeat):
+        start = time.perf_counter()
+        proc = subprocess.run(["/usr/bin/time", "-f", "%M", *cmd], capture_output=True, text=True,
+                              env=env) if os.path.exists("/usr/bin/time") else subprocess.run(
+                                  cmd, capture_output=True, text=True, env=env)
+        times.append(time.perf_counter() - start)
+        if proc.returncode not in (0, 1):
+            raise SystemExit(f"command failed ({proc.returncode}): {' '.join(cmd)}\n{proc.stderr}")
+        tail = proc.stderr.strip().splitlines()[-1:] if proc.stderr else []
+        if tail and tail[0].isdigit():
+            peak = int(tail[0])
+    return statistics.median(times), peak
+
+
+def fleet(size, folder, repeat):
+    path = os.path.join(folder, f"fleet-{size}.toml")
+    with open(path, "w", encoding="utf-8") as handle:
+        handle.write(catalog(size))
+    sites = os.path.join(folder, "sites.toml")
+    with open(sites, "w", encoding="utf-8") as handle:
+        handle.write(SITES)
+    out = os.path.join(folder, f"out-{size}.json")
+    parse = [PY, "-c", f"import tomllib; tomllib.load(open({path!r}, 'rb'))"]
+    check = [*CLI, "check", path, "--sites", sites, "--format", "json", "--output", out]
+    t_parse, _ = timed(parse, repeat)
+    t_check, peak = timed(check, repeat)
+    return t_parse, t_check, peak
+
+
+def main():
+    parser = argparse.ArgumentParser()
+    parser.add_argument("--smoke", action="store_true")
+    args = parser.parse_args()
+    sizes = (300, 3000) if args.smoke else (10_000, 100_000)
+    repeat = 1 if args.smoke else 3
+    with tempfile.TemporaryDirectory() as folder:
+        t_bare, _ = timed([PY, "-c", "pass"], 5)
+        t_lookup, _ = timed([*CLI, "speed", "--poles", "4", "--frequency", "50"], 5)
+        print(f"lookup: speed --poles 4 --frequency 50 = {t_lookup / t_bare:.1f} x bare python "
+              f"(target <= 6x)")
+        demo_env = {**os.environ, "NO_COLOR": "1"}
+        t_demo, _ = timed([*CLI, "check"], 3, env=demo_env)
+        print(f"demo table: {t_demo:.2f} s (target < 1 s)")
+        results = []
+        for size in sizes:
+            t_parse, t_check, peak = fleet(size, folder, repeat)
+            pairs = size * 3
+            results.append((size, t_check))
+            print(f"fleet {size} machines x 3 sites: check = {t_check / t_parse:.2f} x tomllib "
+                  f"parse alone (target <= 2x); peak memory {peak / 1024:.0f} MB; "
+                  f"{size / t_check:,.0f} machines/s ({pairs / t_check:,.0f} pairs/s)")
+        (s0, t0), (s1, t1) = results
+        print(f"scaling {s0} -> {s1}: time x{t1 / t0:.1f} for size x{s1 / s0:.0f}")
+
+
+if __name__ == "__main__":
+    main()

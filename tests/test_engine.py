@@ -1,0 +1,269 @@
+import pytest
+from helpers import codes, machine, site
+
+from machinecheck.check import assess
+
+NEMA_50HP = {"frequency": "60 Hz", "voltage": "460 V", "power": "50 hp", "speed": "1775 rpm",
+             "efficiency": 0.93, "power_factor": 0.85}
+
+
+def test_issue_example_60hz_motor_on_400v_50hz():
+    # The issue's acceptance example: 50 hp 460 V 60 Hz 1775 rpm on 400 V 50 Hz -> 1500 rpm
+    # synchronous, about 1475-1490 rpm running, output at most 5/6 of rated, conditional.
+    # (n_s: IEC 60034-1 definition; output bound: practice notes Q3.)
+    a = assess(machine(NEMA_50HP), site(frequency="50 Hz", voltage="400 V", standard="IEC"))
+    assert a.synchronous_speed_rpm == pytest.approx(1500)
+    assert 1475 <= a.expected_speed_rpm <= 1490
+    assert a.available_power_w <= 5 / 6 * a.rated_power_w + 1e-6
+    assert a.verdict == "conditional"
+    assert "frequency-change" in codes(a)
+
+
+def test_same_machine_on_480v_60hz_nema_is_normal_pairing():
+    # standards.md 2.5 (ANSI C84.1): 480 V systems feed 460 V motors; +4.3 % is within MG 1 12.44.
+    a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="480 V", standard="NEMA"))
+    assert a.verdict == "compatible"
+    assert "normal-pairing" in codes(a)
+    assert a.expected_speed_rpm == pytest.approx(1800 - 25 / (480 / 460) ** 2, abs=0.5)
+
+
+def test_230v_motor_on_208v_is_warned():
+    # NEMA MG 1 12.44 (practice notes Q9): -9.6 % is allowed, warned; torque about 0.82.
+    m = machine({"frequency": "60 Hz", "voltage": "230 V", "power": "5 hp", "speed": "1745 rpm",
+                 "current": "13.2 A"})
+    a = assess(m, site(frequency="60 Hz", voltage="208 V", standard="NEMA"))
+    assert a.verdict == "conditional"
+    assert "near-tolerance-limit" in codes(a, "warning")
+    assert "0.82" in next(f.message for f in a.findings if f.code == "near-tolerance-limit")
+    assert a.full_load_current_a == pytest.approx(13.2 * 230 / 208, rel=1e-6)
+
+
+def test_voltage_far_from_rating_is_incompatible():
+    # IEC 60034-1 7.3: outside zone B (-10 %).
+    m = machine({"frequency": "50 Hz", "voltage": "400 V", "power": "11 kW", "speed": "1460 rpm"})
+    a = assess(m, site(frequency="50 Hz", voltage="230 V", standard="IEC"))
+    assert a.verdict == "incompatible"
+    assert "outside-tolerance" in codes(a, "problem")
+
+
+@pytest.mark.parametrize("volts,zone,verdict", [
+    (400, "A", "compatible"), (418, "A", "compatible"), (425, "B", "conditional"),
+    (445, None, "incompatible"),
+])
+def test_iec_zone_verdicts(volts, zone, verdict):
+    # IEC 60034-1 7.3 zones A/B at rated frequency.
+    m = machine({"frequency": "50 Hz", "voltage": "400 V", "power": "11 kW", "speed": "1460 rpm"})
+    a = assess(m, site(frequency="50 Hz", voltage=f"{volts} V", standard="IEC"))
+    assert a.tolerance["zone"] == zone
+    assert a.verdict == verdict
+
+
+def test_overflux_above_ten_percent_is_incompatible():
+    # 460 V 60 Hz motor left on 460 V 50 Hz: +20 % flux (practice notes Q3 mistakes).
+    a = assess(machine(NEMA_50HP), site(frequency="50 Hz", voltage="460 V", standard="IEC"))
+    assert a.flux_ratio == pytest.approx(1.2)
+    assert "overflux" in codes(a, "problem")
+    assert a.verdict == "incompatible"
+
+
+def test_50hz_motor_on_60hz_same_voltage_underflux_warned():
+    # practice notes Q4: flux 83 %, torque capability 0.69, rated kW kept.
+    m = machine({"frequency": "50 Hz", "voltage": "400 V", "power": "11 kW", "speed": "1460 rpm"})
+    a = assess(m, site(frequency="60 Hz", voltage="400 V", standard="IEC"))
+    assert a.flux_ratio == pytest.approx(5 / 6)
+    assert a.torque_capability == pytest.approx(0.694, abs=1e-3)
+    assert "underflux" in codes(a, "warning")
+    assert a.available_power_w == pytest.approx(11000)
+    assert "speed-increase" in codes(a)
+
+
+def test_pump_moved_50_to_60hz_overloads_motor():
+    # practice notes Q15: a 50 Hz pump on 60 Hz wants about 1.73-1.75 x the power at rated
+    # slip; solved with the load, the overloaded motor slips more, so a little less.
+    m = machine({"frequency": "50 Hz", "voltage": "400 V", "power": "11 kW", "speed": "1460 rpm"},
+                load={"type": "centrifugal", "power": "10 kW"})
+    a = assess(m, site(frequency="60 Hz", voltage="480 V", standard="NEMA"))
+    ratio = a.expected_speed_rpm / 1460
+    assert a.load_power_w / 10000 == pytest.approx(ratio ** 3)  # affinity laws, P ~ n^3
+    assert 1.65 < a.load_power_w / 10000 < 1.76
+    assert "load-overload" in codes(a, "problem")
+
+
+def test_pump_moved_60_to_50hz_loses_head():
+    # practice notes Q14: flow x0.833, head x0.694, power x0.579 (affinity laws).
+    m = machine(NEMA_50HP, load={"type": "centrifugal", "power": "40 hp"})
+    a = assess(m, site(frequency="50 Hz", voltage="380 V", standard="IEC"))
+    assert a.head_ratio == pytest.approx(0.70, abs=0.01)
+    assert "duty-shortfall" in codes(a, "warning")
+
+
+def test_dual_frequency_plate_uses_its_own_set():
+    m = machine([
+        {"frequency": "50 Hz", "voltage": "400 V", "power": "15 kW", "speed": "1465 rpm"},
+        {"frequency": "60 Hz", "voltage": "460 V", "power": "17.3 kW", "speed": "1765 rpm"},
+    ])
+    a = assess(m, site(frequency="60 Hz", voltage="460 V", standard="NEMA"))
+    assert a.rating.frequency_hz == 60
+    assert not a.rerated
+    assert a.available_power_w == pytest.approx(17300)
+    assert a.verdict == "compatible"
+
+
+def test_dual_voltage_picks_connection():
+    # practice notes Q7: 230/460 V plate, low = parallel, high = series.
+    m = machine({"frequency": "60 Hz", "voltage": ["230 V", "460 V"],
+                 "connection": ["low", "high"], "current": ["24 A", "12 A"], "power": "10 hp",
+                 "speed": "1760 rpm"})
+    a = assess(m, site(frequency="60 Hz", voltage="230 V", standard="NEMA"))
+    assert a.connection.name == "low"
+    assert a.full_load_current_a == pytest.approx(24)
+
+
+@pytest.mark.parametrize("volts,connection,star_delta", [
+    (400, "delta", True),   # 400 delta / 690 star on 400 V: delta, star-delta possible
+    (690, "star", False),
+])
+def test_star_delta(volts, connection, star_delta):
+    # practice notes Q8.
+    m = machine({"frequency": "50 Hz", "voltage": ["400 V", "690 V"],
+                 "connection": ["delta", "star"], "power": "55 kW", "speed": "1480 rpm"})
+    a = assess(m, site(frequency="50 Hz", voltage=f"{volts} V", standard="IEC"))
+    assert a.connection.name == connection
+    assert a.star_delta_possible is star_delta
+
+
+def test_230_delta_400_star_on_400v_no_star_delta():
+    # practice notes Q8: 230 delta / 400 star on 400 V -> star only.
+    m = machine({"frequency": "50 Hz", "voltage": ["230 V", "400 V"],
+                 "connection": ["delta", "star"], "power": "3 kW", "speed": "2880 rpm"})
+    a = assess(m, site(frequency="50 Hz", voltage="400 V", standard="IEC"))
+    assert a.connection.name == "star"
+    assert a.star_delta_possible is False
+
+
+def test_400_delta_motor_on_480v_60hz_goes_delta():
+    # practice notes Q8 cross-frequency: 400 delta / 690 star 50 Hz on 480 V 60 Hz -> delta.
+    m = machine({"frequency": "50 Hz", "voltage": ["400 V", "690 V"],
+                 "connection": ["delta", "star"], "power": "55 kW", "speed": "1480 rpm"})
+    a = assess(m, site(frequency="60 Hz", voltage="480 V", standard="NEMA"))
+    assert a.connection.name == "delta"
+    assert a.flux_ratio == pytest.approx(1.0)
+
+
+def test_three_phase_on_single_phase_incompatible():
+    a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="240 V", phases=1,
+                                        standard="NEMA"))
+    assert a.verdict == "incompatible"
+    assert "phase-mismatch" in codes(a, "problem")
+    assert a.available_power_w is None
+
+
+def test_single_phase_motor_on_wye_uses_line_to_neutral():
+    m = machine({"frequency": "50 Hz", "voltage": "230 V", "power": "1.5 kW",
+                 "speed": "2850 rpm"}, phases=1)
+    a = assess(m, site(frequency="50 Hz", voltage="400 V", system="wye", standard="IEC"))
+    assert a.supply_voltage_v == pytest.approx(400 / 3 ** 0.5)
+    assert a.verdict == "compatible"
+
+
+def test_synchronous_motor_runs_at_synchronous_speed():
+    # practice notes Q23: exactly 120 f / p.
+    m = machine({"frequency": "60 Hz", "voltage": "460 V", "power": "200 hp", "speed": "1800 rpm"},
+                kind="synchronous-motor")
+    a = assess(m, site(frequency="50 Hz", voltage="400 V", standard="IEC"))
+    assert a.expected_speed_rpm == pytest.approx(1500)
+
+
+def test_generator_60_to_50hz_five_sixths():
+    # standards.md section 7 / practice notes Q24: 4-pole needs 1500 rpm for 50 Hz; kVA about
+    # 5/6 with the voltage dropped in proportion (480 -> 400 V) [from memory].
+    m = machine({"frequency": "60 Hz", "voltage": "480 V", "power": "500 kVA", "speed": "1800 rpm"},
+                kind="synchronous-generator", poles=4)
+    a = assess(m, site(frequency="50 Hz", voltage="400 V", standard="IEC"))
+    assert a.synchronous_speed_rpm == pytest.approx(1500)
+    assert a.available_apparent_power_va == pytest.approx(500e3 * 5 / 6)
+    assert a.full_load_current_a == pytest.approx(601.4, abs=0.1)
+    assert "generator-conversion" in codes(a)
+
+
+def test_generator_kept_at_480v_on_50hz_overexcited():
+    # practice notes Q24 mistake: keeping 480 V at 50 Hz overexcites the machine.
+    m = machine({"frequency": "60 Hz", "voltage": "480 V", "power": "500 kVA", "speed": "1800 rpm"},
+                kind="synchronous-generator")
+    a = assess(m, site(frequency="50 Hz", voltage="480 V", standard="IEC"))
+    assert "overflux" in codes(a, "problem")
+
+
+def test_unbalance_from_line_voltages():
+    # NEMA MG 1 Part 14: 460/467/450 V -> 1.96 %, derate about 0.95.
+    a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="460 V", standard="NEMA",
+                                        line_voltages=["460 V", "467 V", "450 V"]))
+    assert a.unbalance == pytest.approx(0.0196, abs=1e-4)
+    assert a.factors["unbalance"] == pytest.approx(0.95, abs=0.01)
+    assert "voltage-unbalance" in codes(a, "warning")
+
+
+def test_unbalance_above_five_percent_incompatible():
+    a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="460 V", standard="NEMA",
+                                        unbalance="6 %"))
+    assert a.verdict == "incompatible"
+
+
+def test_altitude_and_ambient_derating_multiply():
+    # common practice table (standards.md 1.2): 2000 m, 50 degC -> 0.86
+    a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="460 V", standard="NEMA",
+                                        altitude="2000 m", ambient="50 degC",
+                                        unbalance="2 %"))
+    assert a.factors["site"] == pytest.approx(0.86)
+    assert a.combined_factor == pytest.approx(0.86 * 0.95, abs=0.005)
+
+
+def test_max_speed_exceeded_on_50_to_60():
+    m = machine({"frequency": "50 Hz", "voltage": "400 V", "power": "30 kW", "speed": "980 rpm"},
+                max_speed="1100 rpm")
+    a = assess(m, site(frequency="60 Hz", voltage="480 V", standard="NEMA"))
+    assert "max-speed-exceeded" in codes(a, "problem")
+
+
+def test_nameplate_current_cross_check():
+    # the issue: flag a nameplate current more than ~10 % off P / (sqrt3 V eta PF).
+    m = machine({**NEMA_50HP, "current": "80 A"})
+    a = assess(m, site(frequency="60 Hz", voltage="460 V", standard="NEMA"))
+    assert "current-mismatch" in codes(a, "warning")
+
+
+def test_nec_code_current_for_nema_site():
+    # NFPA 70 Table 430.250: 50 hp 460 V -> 65 A; conductors 125 % (430.22).
+    a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="480 V", standard="NEMA"))
+    assert a.code_current_a == 65
+    assert "code-current" in codes(a)
+
+
+def test_service_factor_reset_off_rated_supply():
+    # NEMA MG 1 14.37: SF applies only at rated voltage and frequency.
+    m = machine(NEMA_50HP, service_factor=1.15)
+    on = assess(m, site(frequency="60 Hz", voltage="460 V", standard="NEMA"))
+    off = assess(m, site(frequency="50 Hz", voltage="380 V", standard="IEC"))
+    assert on.service_factor_at_site == 1.15
+    assert off.service_factor_at_site == 1.0
+
+
+def test_efficiency_class_required_by_site():
+    # IEC 60034-30-1: 4 kW 4-pole 50 Hz at 85.9 % is below IE2 (86.6 %).
+    m = machine({"frequency": "50 Hz", "voltage": "400 V", "power": "4 kW", "speed": "1440 rpm",
+                 "efficiency": "85.9 %"}, efficiency_class="IE2")
+    a = assess(m, site(frequency="50 Hz", voltage="400 V", standard="IEC",
+                       min_efficiency_class="IE3"))
+    assert "efficiency-below-class" in codes(a, "warning")
+    assert "efficiency-class-required" in codes(a, "problem")
+
+
+def test_demo_shows_all_three_verdicts():
+    from machinecheck.catalog import load_catalog, load_sites
+    from machinecheck.check import assess_all
+    from machinecheck.cli import _demo_path
+
+    results = assess_all(load_catalog(_demo_path("fleet.toml")).machines,
+                         load_sites(_demo_path("sites.toml")))
+    assert {a.verdict for a in results} == {"compatible", "conditional", "incompatible"}
+    assert len(load_catalog(_demo_path("fleet.toml")).machines) >= 10

@@ -1,0 +1,89 @@
+import pytest
+
+from machinecheck.errors import DomainError
+from machinecheck.physics import speed as sp
+
+# Synchronous speed n_s = 120 f / p. Values: standards.md section 9, pole/frequency table
+# (Engineering ToolBox, confirmed), which follows IEC 60034-1 / NEMA MG 1 definitions.
+SYNC_TABLE = [
+    (2, 3000, 3600), (4, 1500, 1800), (6, 1000, 1200), (8, 750, 900), (10, 600, 720),
+    (12, 500, 600), (16, 375, 450), (20, 300, 360),
+]
+
+
+@pytest.mark.parametrize("poles,at50,at60", SYNC_TABLE)
+def test_synchronous_speed_table(poles, at50, at60):
+    assert sp.synchronous_speed(50.0, poles) == pytest.approx(at50)
+    assert sp.synchronous_speed(60.0, poles) == pytest.approx(at60)
+
+
+@pytest.mark.parametrize("poles", [14, 18])
+def test_synchronous_speed_other_even_counts(poles):
+    # 120 f / p for the rows the table skips (arithmetic of the definition).
+    assert sp.synchronous_speed(50.0, poles) == pytest.approx(6000.0 / poles)
+
+
+@pytest.mark.parametrize("poles", [0, 3, -4, 5])
+def test_synchronous_speed_rejects_bad_poles(poles):
+    with pytest.raises(DomainError):
+        sp.synchronous_speed(50.0, poles)
+
+
+# Typical full-load speeds -> poles: standards.md section 9 (Engineering ToolBox "synchronous vs
+# full load speed", confirmed) and the practice-notes Q1 examples.
+@pytest.mark.parametrize("speed,frequency,poles", [
+    (3500, 60, 2), (1770, 60, 4), (1170, 60, 6), (870, 60, 8), (690, 60, 10),
+    (2900, 50, 2), (1450, 50, 4), (960, 50, 6), (720, 50, 8), (575, 50, 10),
+    (2950, 50, 2), (1460, 50, 4), (1775, 60, 4),
+])
+def test_poles_from_typical_full_load_speed(speed, frequency, poles):
+    assert sp.poles_from_speed(speed, frequency) == poles
+
+
+@pytest.mark.parametrize("speed,frequency", [(1500, 50), (1800, 60), (1600, 50), (1200, 50)])
+def test_poles_rejects_no_slip_or_excess_slip(speed, frequency):
+    # 1500 rpm at 50 Hz: no slip (a 4-pole synchronous speed). 1200 rpm at 50 Hz: 20 % slip
+    # below 1500 rpm. Rule: reject implied slip <= 0 or > 10 % (standards.md section 9).
+    with pytest.raises(DomainError):
+        sp.poles_from_speed(speed, frequency)
+
+
+def test_poles_of_synchronous_machine():
+    assert sp.poles_from_speed(1800, 60, synchronous=True) == 4
+    with pytest.raises(DomainError):
+        sp.poles_from_speed(1750, 60, synchronous=True)
+
+
+def test_slip_worked_examples():
+    # standards.md section 9 (confirmed): 4-pole 60 Hz at 1746 rpm -> s = 3.0 %;
+    # 1500/1450 -> 3.33 %; 1800/1750 -> 2.78 % (derived).
+    assert sp.slip(1800, 1746) == pytest.approx(0.030)
+    assert sp.slip(1500, 1450) == pytest.approx(0.0333, abs=1e-4)
+    assert sp.slip(1800, 1750) == pytest.approx(0.0278, abs=1e-4)
+    # the issue's lookup example: 1460 rpm at 50 Hz is 2.7 % slip
+    assert sp.slip(1500, 1460) == pytest.approx(0.0267, abs=1e-4)
+
+
+def test_slip_rpm_kept_at_constant_flux():
+    # practice notes Q2: 1460 rpm 50 Hz motor on correct-V/f 60 Hz runs about 1800 - 40 = 1760
+    # rpm at rated torque, not 1460 x 1.2 = 1752.
+    assert sp.running_speed(1800, 40, torque_ratio=1.0, flux_ratio=1.0) == pytest.approx(1760)
+
+
+def test_slip_scales_with_inverse_square_of_flux():
+    # practice notes section 0: slip_rpm ~ T / (V/f)^2 (NEMA MG 1 12.44.2 torque ~ V^2/f^2).
+    # A 230 V motor on 208 V (k = 0.904) slips about 22 % more (practice notes Q9).
+    k = 208 / 230
+    n = sp.running_speed(1800, 50, flux_ratio=k)
+    assert (1800 - n) / 50 == pytest.approx(1.22, abs=0.01)
+
+
+def test_slip_proportional_to_torque():
+    # linear low-slip region (Chapman, Electric Machinery Fundamentals, sec. 6.5).
+    assert sp.running_speed(1500, 40, torque_ratio=0.5) == pytest.approx(1480)
+    assert sp.running_speed(1500, 40, torque_ratio=0.0) == pytest.approx(1500)
+
+
+def test_shaft_torque_identity():
+    # T [N m] = 9550 P [kW] / n [rpm] (unit identity, from memory).
+    assert sp.shaft_torque(11000, 1460) == pytest.approx(9549.3 * 11 / 1460, rel=1e-4)

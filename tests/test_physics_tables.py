@@ -1,0 +1,115 @@
+import pytest
+
+from machinecheck.physics import efficiency, loads, nec, starting
+
+
+@pytest.mark.parametrize("hp,volts,amps", [
+    # NFPA 70 Table 430.250 (NEC 2008 copy, standards.md 3.1, confirmed)
+    (10, 460, 14), (10, 230, 28), (10, 200, 32.2), (10, 208, 30.8), (50, 460, 65),
+    (100, 460, 124), (1, 115, 8.4), (0.5, 575, 0.9), (200, 2300, 49), (500, 460, 590),
+])
+def test_nec_three_phase_table(hp, volts, amps):
+    assert nec.table_current(hp, volts)[0] == pytest.approx(amps)
+
+
+def test_nec_system_ranges_use_motor_columns():
+    # Table 430.250 heading: currents may be used for 440-480 V systems (confirmed).
+    assert nec.table_current(10, 480)[0] == pytest.approx(14)
+
+
+@pytest.mark.parametrize("hp,volts,amps", [
+    # NFPA 70 Table 430.248, single-phase (standards.md 3.2, confirmed)
+    (1, 115, 16), (1, 230, 8.0), (5, 230, 28), (10, 208, 55.0), (0.5, 115, 9.8),
+])
+def test_nec_single_phase_table(hp, volts, amps):
+    assert nec.table_current(hp, volts, phases=1)[0] == pytest.approx(amps)
+
+
+@pytest.mark.parametrize("pf,amps", [(1.0, 52), (0.9, 57.2), (0.8, 65)])
+def test_nec_synchronous_multipliers(pf, amps):
+    # Table 430.250 synchronous, 50 hp 460 V unity PF 52 A; x1.1 at 0.9, x1.25 at 0.8.
+    assert nec.table_current(50, 460, synchronous=True, power_factor=pf)[0] == pytest.approx(amps)
+
+
+@pytest.mark.parametrize("kw,hp", [
+    # practice notes Q11: 5 kW -> 6.7 hp -> 7.5 hp (round up). 7.5 kW = 10.06 hp is taken as
+    # 10 hp (its metric twin; common practice, no published source).
+    (5, 7.5), (11, 15), (18.5, 25), (7.5, 10), (4, 7.5), (22, 30),
+])
+def test_kw_plates_round_up_to_standard_hp(kw, hp):
+    assert nec.standard_hp(kw / 0.7457) == hp
+
+
+def test_nec_no_column_for_400v():
+    assert nec.table_current(10, 400) is None
+
+
+@pytest.mark.parametrize("value,letter", [
+    # NEMA MG 1 10.37.2 bands (standards.md 2.4, confirmed): lower figure inclusive.
+    (3.14, "A"), (3.15, "B"), (6.29, "G"), (6.3, "H"), (7.09, "H"), (7.1, "J"), (22.4, "V"),
+])
+def test_code_letter_bands(value, letter):
+    assert starting.code_letter_for(value) == letter
+
+
+def test_code_letter_current_worked_value():
+    # standards.md 2.4 [derived]: 10 hp, 460 V, code G -> 70.3 A to 79.1 A.
+    low, high = starting.locked_rotor_current_from_code("G", 10, 460)
+    assert low == pytest.approx(70.3, abs=0.1)
+    assert high == pytest.approx(79.1, abs=0.1)
+
+
+def test_locked_rotor_current_60hz_motor_on_50hz():
+    # practice notes Q22: a 60 Hz motor on 50 Hz at full voltage draws about 120 %.
+    assert starting.locked_rotor_current_at_site(100, 1.2) == pytest.approx(120)
+
+
+@pytest.mark.parametrize("cls,kw,poles,value", [
+    # IEC 60034-30-1 50 Hz (standards.md 5.1 table and 5.2 check values, confirmed)
+    ("IE3", 1.0, 4, 83.7), ("IE3", 0.75, 4, 82.5), ("IE2", 200, 2, 95.0), ("IE3", 11, 4, 91.4),
+    ("IE2", 1.5, 4, 82.8), ("IE3", 200, 2, 95.8), ("IE4", 75, 4, 96.0), ("IE1", 1.5, 4, 77.2),
+    ("IE3", 7.5, 6, 89.1), ("IE2", 0.55, 4, None),
+])
+def test_iec_50hz_minimum_efficiency(cls, kw, poles, value):
+    result = efficiency.minimum_efficiency(cls, kw, poles, 50)
+    if value is None:
+        assert result is not None  # 0.55 kW uses the low-range coefficients
+    else:
+        assert 100 * result == pytest.approx(value, abs=0.05)
+
+
+@pytest.mark.parametrize("cls,kw,poles,value", [
+    # IEC 60034-30-1 60 Hz = 10 CFR 431.25 levels (standards.md 5.3, confirmed), midpoint rule
+    ("IE3", 37, 4, 94.5), ("IE2", 7.5, 4, 89.5), ("IE3", 150, 4, 96.2),
+    ("IE3", 16.0, 4, 93.0),   # below the 15/18.5 midpoint 16.75 -> 15 kW value
+    ("IE3", 17.3, 4, 93.6),   # above the midpoint -> 18.5 kW value
+])
+def test_iec_60hz_minimum_efficiency(cls, kw, poles, value):
+    assert 100 * efficiency.minimum_efficiency(cls, kw, poles, 60) == pytest.approx(value)
+
+
+def test_efficiency_class_of():
+    assert efficiency.efficiency_class_of(0.921, 15, 4, 50) == "IE3"
+    assert efficiency.efficiency_class_of(0.859, 4, 4, 50) == "IE1"
+
+
+@pytest.mark.parametrize("ratio,flow,head,power", [
+    # affinity laws (standards.md 6.3, confirmed): 50 -> 60 Hz and 60 -> 50 Hz
+    (1.2, 1.2, 1.44, 1.728), (5 / 6, 0.833, 0.694, 0.579), (1.1, 1.1, 1.21, 1.331),
+])
+def test_affinity_ratios(ratio, flow, head, power):
+    q, h, p = loads.affinity(ratio)
+    assert (q, h, p) == pytest.approx((flow, head, power), abs=1e-3)
+
+
+def test_affinity_worked_example():
+    # standards.md 6.3 (affinity page, confirmed): 100 gpm, 50 ft, 10 hp at 1750 rpm -> 1450 rpm:
+    # 82.86 gpm, 34.33 ft, 5.69 hp.
+    q, h, p = loads.affinity(1450 / 1750)
+    assert (100 * q, 50 * h, 10 * p) == pytest.approx((82.86, 34.33, 5.69), abs=0.01)
+
+
+def test_constant_torque_power_follows_speed():
+    # practice notes Q16: constant-torque loads, power ~ speed.
+    assert loads.power_ratio("constant-torque", 1.2) == pytest.approx(1.2)
+    assert loads.power_ratio("constant-power", 0.8) == pytest.approx(1.0)
