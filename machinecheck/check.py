@@ -254,8 +254,8 @@ def _tolerance(a: Assessment, w) -> None:
     if w is not None:
         where = "zone " + str(result.get("zone")) if result.get("zone") is not None else (
             "within" if result["within"] else "outside")
-        w.append(f"tolerance ({site.standard}, {basis}): dV = {100 * dv:+.1f} %, "
-                 f"df = {100 * (a.frequency_ratio - 1):+.1f} % -> {where}")
+        w.append(f"tolerance ({site.standard}, {basis} point): dV = {100 * dv:+.1f} %, "
+                 f"df = {100 * df:+.1f} % -> {where}")
 
 
 def _factors(a: Assessment, w) -> None:

@@ -56,8 +56,6 @@ def render(assessments, *, explain=False, width=None, color=None, sites=(), **_)
             lines = [f"{'✗' if f.severity == 'problem' else '!'} {f.message}" for f in found]
             if not lines:
                 lines = [f.message for f in a.findings if f.code == "connection"] or ["fits as rated"]
-            if explain:
-                lines += ["working:"] + [f"  {line}" for line in a.working]
             speed = _num(a.expected_speed_rpm, ".0f")
             if a.speed_band_rpm is not None and a.expected_speed_rpm is not None:
                 speed += f" ±{a.speed_band_rpm:.0f}"
@@ -72,6 +70,12 @@ def render(assessments, *, explain=False, width=None, color=None, sites=(), **_)
                           _num(a.full_load_current_a, ".1f"),
                           Text(_safe("\n".join(lines), 4000)))
         console.print(table)
+        if explain:
+            for a in worst_first(group):
+                console.print(Text(f"working for {_safe(a.machine.id)} at {_safe(s.id)}:",
+                                   style="bold"))
+                for line in a.working:
+                    console.print(Text(f"  {line}"))
     counts = summary_counts(assessments)
     total = {v: sum(c[v] for c in counts.values()) for v in _MARK}
     console.print(Text(
