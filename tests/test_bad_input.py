@@ -140,3 +140,8 @@ def test_interrupt_leaves_no_output(tmp_path, monkeypatch):
     result = run("check", "--format", "json", "--output", str(out))
     assert result.exit_code == 130
     assert list(tmp_path.iterdir()) == []
+
+
+def test_csv_inventory_refused_clearly(write):
+    path = write("inventory.csv", "id,frequency\nM-1,50 Hz\n")
+    check_failure(run("check", path), "inventory.csv", "CSV inventories are not read yet")

@@ -182,3 +182,41 @@ def test_output_in_missing_folder(tmp_path):
 @pytest.mark.parametrize("args", [["check", "--format", "pdf"], ["nosuch"], ["speed"]])
 def test_usage_errors_exit_2(args):
     assert run(*args).exit_code == 2
+
+
+def test_markdown_report_tables_are_well_formed():
+    result = run("check", "--format", "markdown", "--matrix")
+    lines = result.output.splitlines()
+    assert lines[0] == "# machinecheck report"
+    tables = [line for line in lines if line.startswith("|")]
+    header_cols = None
+    for line in tables:
+        cols = line.count("|") - line.count("\\|")
+        if line.startswith("|---") or header_cols is None:
+            header_cols = cols if header_cols is None else header_cols
+        assert cols >= 3
+    assert "## Fleet matrix" in result.output
+    assert "Caution" in lines[-1]
+
+
+def test_csv_report_parses_back():
+    import csv
+    import io
+
+    result = run("check", "--format", "csv")
+    rows = list(csv.DictReader(io.StringIO(result.output)))
+    assert len(rows) == 12 * 4
+    assert {r["verdict"] for r in rows} == {"compatible", "conditional", "incompatible"}
+    assert all(r["machine"] and r["site"] for r in rows)
+
+
+def test_table_matrix():
+    result = run("check", "--matrix")
+    assert "fleet matrix" in result.output
+    assert "tor-camp" in result.output
+
+
+def test_problems_only_keeps_non_compatible():
+    result = run("check", "--format", "json", "--problems-only")
+    verdicts = {r["verdict"] for r in json.loads(result.output)["results"]}
+    assert "compatible" not in verdicts and verdicts

@@ -7,6 +7,7 @@ import os
 
 from . import CAUTION
 from .data import driving_findings, summary_counts, worst_first
+from .matrix import verdict_matrix
 
 _STYLE = {"compatible": "green", "conditional": "yellow", "incompatible": "bold red"}
 _MARK = {"compatible": "compatible", "conditional": "conditional",
@@ -23,7 +24,7 @@ def _safe(text: str, limit: int = 400) -> str:
     return cleaned if len(cleaned) <= limit else cleaned[: limit - 1] + "…"
 
 
-def render(assessments, *, explain=False, width=None, color=None, sites=(), **_) -> str:
+def render(assessments, *, explain=False, matrix=False, width=None, color=None, **_) -> str:
     from rich.console import Console
     from rich.table import Table
     from rich.text import Text
@@ -76,6 +77,19 @@ def render(assessments, *, explain=False, width=None, color=None, sites=(), **_)
                                    style="bold"))
                 for line in a.working:
                     console.print(Text(f"  {line}"))
+    if matrix:
+        machines, site_ids, cells = verdict_matrix(assessments)
+        grid = Table(title="fleet matrix: machines down, sites across", title_justify="left")
+        grid.add_column("machine")
+        for site_id in site_ids:
+            grid.add_column(Text(_safe(site_id)))
+        for machine_id in machines:
+            row = [Text(_safe(machine_id))]
+            for site_id in site_ids:
+                verdict = cells.get((machine_id, site_id))
+                row.append(Text(verdict or "", style=_STYLE.get(verdict, "")))
+            grid.add_row(*row)
+        console.print(grid)
     counts = summary_counts(assessments)
     total = {v: sum(c[v] for c in counts.values()) for v in _MARK}
     console.print(Text(

@@ -1,0 +1,36 @@
+"""CSV renderer: one row per (machine, site) pair with a header, ready for a spreadsheet."""
+
+from __future__ import annotations
+
+import csv
+import io
+
+from .data import result_dict
+
+COLUMNS = ("machine", "site", "verdict", "rating_frequency_hz", "rating_voltage_v", "connection",
+           "synchronous_speed_rpm", "expected_speed_rpm", "rated_power_kw", "available_power_kw",
+           "load_power_kw", "full_load_current_a", "flux_ratio", "combined_derating",
+           "code_current_a", "finding_codes")
+
+
+def _safe(value):
+    """Spreadsheet-safe cell: text that a spreadsheet would run as a formula is quoted."""
+    if isinstance(value, str) and value[:1] in ("=", "+", "-", "@"):
+        return "'" + value
+    return "" if value is None else value
+
+
+def render(assessments, **_) -> str:
+    buffer = io.StringIO()
+    writer = csv.writer(buffer, lineterminator="\n")
+    writer.writerow(COLUMNS)
+    for a in assessments:
+        d = result_dict(a)
+        codes = ";".join(f"{f['severity']}:{f['code']}" for f in d["findings"])
+        writer.writerow([_safe(x) for x in (
+            d["machine"], d["site"], d["verdict"], d["rating"]["frequency_hz"],
+            d["rating"]["voltage_v"], d["rating"]["connection"], d["synchronous_speed_rpm"],
+            d["expected_speed_rpm"], d["rated_power_kw"], d["available_power_kw"],
+            d["load_power_kw"], d["full_load_current_a"], d["flux_ratio"],
+            d["combined_derating"], d["code_current_a"], codes)])
+    return buffer.getvalue()
