@@ -119,34 +119,22 @@ def test_dual_voltage_picks_connection():
     assert a.full_load_current_a == pytest.approx(24)
 
 
-@pytest.mark.parametrize("volts,connection,star_delta", [
-    (400, "delta", True),   # 400 delta / 690 star on 400 V: delta, star-delta possible
-    (690, "star", False),
+@pytest.mark.parametrize("plate,power,speed_,supply,frequency,standard,connection,star_delta", [
+    # practice notes Q8: 400 delta / 690 star on 400 V -> delta, star-delta possible
+    (["400 V", "690 V"], "55 kW", "1480 rpm", "400 V", "50 Hz", "IEC", "delta", True),
+    (["400 V", "690 V"], "55 kW", "1480 rpm", "690 V", "50 Hz", "IEC", "star", False),
+    # 230 delta / 400 star on 400 V -> star only, no star-delta starter
+    (["230 V", "400 V"], "3 kW", "2880 rpm", "400 V", "50 Hz", "IEC", "star", False),
+    # cross-frequency: 400 delta / 690 star 50 Hz on 480 V 60 Hz -> delta (8.0 = 8.0 V/Hz)
+    (["400 V", "690 V"], "55 kW", "1480 rpm", "480 V", "60 Hz", "NEMA", "delta", True),
 ])
-def test_star_delta(volts, connection, star_delta):
-    # practice notes Q8.
-    m = machine({"frequency": "50 Hz", "voltage": ["400 V", "690 V"],
-                 "connection": ["delta", "star"], "power": "55 kW", "speed": "1480 rpm"})
-    a = assess(m, site(frequency="50 Hz", voltage=f"{volts} V", standard="IEC"))
+def test_delta_star_connection(plate, power, speed_, supply, frequency, standard, connection,
+                               star_delta):
+    m = machine({"frequency": "50 Hz", "voltage": plate, "connection": ["delta", "star"],
+                 "power": power, "speed": speed_})
+    a = assess(m, site(frequency=frequency, voltage=supply, standard=standard))
     assert a.connection.name == connection
     assert a.star_delta_possible is star_delta
-
-
-def test_230_delta_400_star_on_400v_no_star_delta():
-    # practice notes Q8: 230 delta / 400 star on 400 V -> star only.
-    m = machine({"frequency": "50 Hz", "voltage": ["230 V", "400 V"],
-                 "connection": ["delta", "star"], "power": "3 kW", "speed": "2880 rpm"})
-    a = assess(m, site(frequency="50 Hz", voltage="400 V", standard="IEC"))
-    assert a.connection.name == "star"
-    assert a.star_delta_possible is False
-
-
-def test_400_delta_motor_on_480v_60hz_goes_delta():
-    # practice notes Q8 cross-frequency: 400 delta / 690 star 50 Hz on 480 V 60 Hz -> delta.
-    m = machine({"frequency": "50 Hz", "voltage": ["400 V", "690 V"],
-                 "connection": ["delta", "star"], "power": "55 kW", "speed": "1480 rpm"})
-    a = assess(m, site(frequency="60 Hz", voltage="480 V", standard="NEMA"))
-    assert a.connection.name == "delta"
     assert a.flux_ratio == pytest.approx(1.0)
 
 
