@@ -152,7 +152,7 @@ def parse(value, kind: str) -> float:
     if split is None:
         raise InputError(f"expected {expected}, got {value!r}")
     number, unit = split
-    conversion = _conversion(unit, kind)
+    conversion = _conversion(unit or default, kind)  # "60" means the default unit, as 60 does
     if isinstance(conversion, str):
         raise InputError(f"{conversion}: expected {expected}, got {value!r}")
     scale, offset = conversion

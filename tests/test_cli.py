@@ -220,3 +220,21 @@ def test_problems_only_keeps_non_compatible():
     result = run("check", "--format", "json", "--problems-only")
     verdicts = {r["verdict"] for r in json.loads(result.output)["results"]}
     assert "compatible" not in verdicts and verdicts
+
+
+def test_one_off_bare_numbers_and_site_options():
+    # Bare numbers on the command line take the default unit (Hz, V, A, rpm).
+    result = run("check", "--power", "10 hp", "--voltage", "230", "--voltage", "460",
+                 "--connection", "low", "--connection", "high", "--current", "24", "--current",
+                 "12", "--frequency", "60", "--speed", "1760", "--code-letter", "G",
+                 "--service-factor", "1.15", "--efficiency", "0.917", "--power-factor", "0.85",
+                 "--supply-voltage", "460", "--supply-frequency", "60", "--standard", "NEMA",
+                 "--supply-unbalance", "2 %", "--altitude", "2000 m", "--ambient", "45 degC",
+                 "--load-type", "centrifugal", "--load-power", "8 hp", "--format", "json")
+    r = json.loads(result.output)["results"][0]
+    assert r["rating"]["connection"] == "high"
+    # NEMA MG 1 Fig. 14-1 at 2 % -> 0.95; common-practice table 2000 m, 45 degC -> 0.90
+    assert r["derating"]["unbalance"] == pytest.approx(0.95, abs=0.01)
+    assert r["derating"]["site"] == pytest.approx(0.90)
+    assert r["code_current_a"] == 14  # NFPA 70 Table 430.250, 10 hp 460 V
+    assert r["locked_rotor_current_a"]["basis"] == "code letter G"
