@@ -99,7 +99,7 @@ def _oneoff_machine(values: dict):
             if values.get(option) is not None}
     if load:
         machine["load"] = load
-    table = {**MACHINE_OPTIONS, **RATING_OPTIONS, **{k: v for k, v in LOAD_OPTIONS.items()}}
+    table = {**MACHINE_OPTIONS, **RATING_OPTIONS, **LOAD_OPTIONS}
     try:
         return catalog_from_data({"machine": [machine]}, "command line").machines
     except InputErrors as exc:

@@ -11,7 +11,9 @@ def check(a) -> None:
     m, site, r = a.machine, a.site, a.rating
     if not a.phases_ok:
         return
-    low, high = 0.5, 1.5
+    from ..check import RERATING_RANGE
+
+    low, high = RERATING_RANGE
     if a.rerated:
         if not low <= a.frequency_ratio <= high:
             a.add("frequency-out-of-range", "problem",
