@@ -12,6 +12,7 @@ from dataclasses import dataclass, field
 
 from .errors import DomainError
 from .model import Connection, Machine, Rating, Site
+from .physics import circuit as circuit_physics
 from .physics import current as current_physics
 from .physics import environment, frequency, loads, nec, starting, tolerance, unbalance
 from .physics import speed as speed_physics
@@ -72,6 +73,15 @@ class Assessment:
     stalled: bool = False
     full_load_current_a: float | None = None
     operating_current_a: float | None = None
+    operating_power_factor: float | None = None
+    operating_efficiency: float | None = None
+    breakdown_margin: float | None = None
+    breakdown_torque_nm: float | None = None
+    stall_torque_nm: float | None = None
+    operating_point_basis: str | None = None
+    circuit: circuit_physics.Circuit | None = None
+    circuit_unavailable: str | None = None
+    rule_speed_rpm: float | None = None
     current_basis: str | None = None
     formula_current_a: float | None = None
     nameplate_formula_ratio: float | None = None
@@ -327,7 +337,7 @@ def _motor_speed_and_load(a: Assessment, w) -> None:
 
         def load_torque(n):
             return t0 * loads.torque_ratio(load.type, n / n_ref)
-    elif a.available_power_w is not None:
+    elif a.available_power_w:
         available = a.available_power_w
 
         def load_torque(n):
@@ -342,30 +352,20 @@ def _motor_speed_and_load(a: Assessment, w) -> None:
         if w is not None:
             w.append(f"synchronous motor: runs at n_s = {n_s:.0f} rpm")
     elif rating.speed_rpm is not None and t_rated and load_torque is not None:
-        slip_rated = n_s_rated - rating.speed_rpm
-        k2 = a.flux_ratio ** 2
-        n = n_s - slip_rated * (load_torque(n_s) / t_rated) / k2
-        for _ in range(60):
-            if n <= 0.3 * n_s:
-                break
-            n_next = n_s - slip_rated * (load_torque(n) / t_rated) / k2
-            if abs(n_next - n) < 1e-7:
-                n = n_next
-                break
-            n = n_next
-        if n <= 0.5 * n_s:
-            a.stalled = True
-            n = None
+        n_rule, tau = _rule_speed(a, load_torque, t_rated, w)
+        a.rule_speed_rpm = n_rule
+        a.circuit = _estimate_circuit(a)
+        if a.circuit is None:
+            a.operating_point_basis = "slip rule"
+            a.slip_model_valid = (0.8 <= a.flux_ratio <= 1.2) and (tau is None or tau <= 1.5)
+            n = n_rule
+            a.stalled = n is None
         else:
+            a.operating_point_basis = "equivalent circuit"
+            n = _circuit_point(a, load_torque, w)
+        if n is not None:
             a.expected_speed_rpm = n
             a.speed_band_rpm = 0.2 * (n_s - n)  # NEMA MG 1 / IEC 60034-1: slip +-20 %
-        tau = load_torque(n) / t_rated if n else None
-        a.slip_model_valid = (0.8 <= a.flux_ratio <= 1.2) and (tau is None or tau <= 1.5)
-        if w is not None and n:
-            w.append(f"running speed: slip at rated = {n_s_rated:.0f} - {rating.speed_rpm:.0f} = "
-                     f"{slip_rated:.1f} rpm; at the site slip = {slip_rated:.1f} x T/T_rated "
-                     f"{tau:.3f} / k^2 {k2:.3f} = {n_s - n:.1f} rpm -> n = {n:.0f} rpm "
-                     f"(+-{a.speed_band_rpm:.0f} rpm: slip tolerance +-20 %)")
     if load is not None and a.expected_speed_rpm is not None:
         n = a.expected_speed_rpm
         ratio = n / n_ref
@@ -382,6 +382,82 @@ def _motor_speed_and_load(a: Assessment, w) -> None:
                      f"{ratio:.3f}; load power = {a.load_power_w / 1000:.2f} kW")
 
 
+def _rule_speed(a: Assessment, load_torque, t_rated: float, w):
+    """Running speed by the linear slip rule (the cross-check): (speed or None, T / T_rated)."""
+    rating = a.rating
+    n_s = a.synchronous_speed_rpm
+    slip_rated = 120.0 * rating.frequency_hz / a.poles - rating.speed_rpm
+    k2 = a.flux_ratio ** 2
+    n = n_s - slip_rated * (load_torque(n_s) / t_rated) / k2
+    for _ in range(60):
+        if n <= 0.3 * n_s:
+            break
+        n_next = n_s - slip_rated * (load_torque(n) / t_rated) / k2
+        if abs(n_next - n) < 1e-7:
+            n = n_next
+            break
+        n = n_next
+    if n <= 0.5 * n_s:
+        return None, None
+    tau = load_torque(n) / t_rated
+    if w is not None:
+        w.append(f"slip rule: slip at rated = {slip_rated:.1f} rpm; at the site slip = "
+                 f"{slip_rated:.1f} x T/T_rated {tau:.3f} / k^2 {k2:.3f} = {n_s - n:.1f} rpm -> "
+                 f"n = {n:.0f} rpm")
+    return n, tau
+
+
+def _estimate_circuit(a: Assessment):
+    """The rating set's equivalent circuit, or None with the reason kept in the Assessment."""
+    m, rating, c = a.machine, a.rating, a.connection
+    if m.kind != "induction-motor" or m.phases != 3:
+        return None  # the estimate covers three-phase induction motors; the rules serve the rest
+    current = c.current_a
+    if c.is_range and current is not None and a.rated_voltage_v != c.voltage_v:
+        current = current * c.voltage_v / a.rated_voltage_v
+    try:
+        return circuit_physics.estimate(
+            rating.power_w, a.rated_voltage_v, rating.frequency_hz, a.poles, rating.speed_rpm,
+            current_a=current, power_factor=rating.power_factor, efficiency=rating.efficiency,
+            design=m.design_letter)
+    except DomainError as exc:
+        a.circuit_unavailable = str(exc)
+        return None
+
+
+def _circuit_point(a: Assessment, load_torque, w):
+    """Solve the circuit at the site; fills the operating figures and returns the speed."""
+    circuit, site = a.circuit, a.site
+    op = circuit_physics.solve(circuit, a.supply_voltage_v, site.frequency_hz, load_torque)
+    if w is not None:
+        w.append(f"equivalent circuit (per phase, star, at {circuit.frequency_hz:g} Hz): "
+                 f"R1 {circuit.r1_ohm:.4g}, X1 {circuit.x1_ohm:.4g}, R2' {circuit.r2_ohm:.4g}, "
+                 f"X2' {circuit.x2_ohm:.4g}, Xm {circuit.xm_ohm:.4g} ohm; rotational loss "
+                 f"{circuit.rotational_loss_w:.0f} W")
+    if op is None:
+        a.stalled = True
+        a.breakdown_torque_nm, s_max = circuit_physics.breakdown(
+            circuit, a.supply_voltage_v, site.frequency_hz)
+        a.stall_torque_nm = load_torque((1.0 - s_max) * a.synchronous_speed_rpm)
+        if w is not None:
+            w.append(f"  at {a.supply_voltage_v:.0f} V {site.frequency_hz:g} Hz: breakdown torque "
+                     f"{a.breakdown_torque_nm:.1f} N m is below the {a.stall_torque_nm:.1f} N m "
+                     "asked of it: no stable running point")
+        return None
+    a.breakdown_torque_nm = op.breakdown_torque_nm
+    load = load_torque(op.speed_rpm)
+    a.operating_current_a = op.current_a
+    a.operating_power_factor = op.power_factor
+    a.operating_efficiency = op.efficiency
+    a.breakdown_margin = op.breakdown_torque_nm / load if load > 0 else None
+    if w is not None:
+        margin = "" if a.breakdown_margin is None else f"; breakdown {a.breakdown_margin:.2f} x load"
+        w.append(f"  at {a.supply_voltage_v:.0f} V {site.frequency_hz:g} Hz and {load:.1f} N m: "
+                 f"slip {100 * op.slip:.2f} % -> n = {op.speed_rpm:.0f} rpm, I = "
+                 f"{op.current_a:.1f} A, PF {op.power_factor:.3f}, eta {op.efficiency:.3f}{margin}")
+    return op.speed_rpm
+
+
 def _motor_current(a: Assessment, w) -> None:
     m, rating, c = a.machine, a.rating, a.connection
     if not a.phases_ok:
@@ -392,7 +468,7 @@ def _motor_current(a: Assessment, w) -> None:
     if output is None:
         return
     power_ratio = output / rating.power_w if rating.power_w else 1.0
-    if a.load_power_w is not None and c.current_a:
+    if a.load_power_w is not None and c.current_a and a.operating_current_a is None:
         a.operating_current_a = current_physics.current_at_site(
             c.current_a, a.rated_voltage_v, a.supply_voltage_v, a.load_power_w / rating.power_w)
     if eta and pf and rating.power_w:

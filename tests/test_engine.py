@@ -1,3 +1,5 @@
+import math
+
 import pytest
 from helpers import codes, machine, site
 
@@ -255,3 +257,53 @@ def test_demo_shows_all_three_verdicts():
                          load_sites(_demo_path("sites.toml")))
     assert {a.verdict for a in results} == {"compatible", "conditional", "incompatible"}
     assert len(load_catalog(_demo_path("fleet.toml")).machines) >= 10
+
+
+def test_rated_supply_gives_back_the_plate_through_the_circuit():
+    # The circuit estimate reproduces its own plate (issue requirement); the current is
+    # P / (sqrt(3) V eta PF) = 37.28 kW / (sqrt(3) 460 V 0.93 0.85) = 59.2 A (derived).
+    a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="460 V", standard="NEMA"))
+    assert a.operating_point_basis == "equivalent circuit"
+    assert a.expected_speed_rpm == pytest.approx(1775, abs=0.1)
+    assert a.rule_speed_rpm == pytest.approx(1775, abs=0.1)
+    assert a.operating_current_a == pytest.approx(59.2, abs=0.1)
+    assert a.operating_power_factor == pytest.approx(0.85, abs=1e-3)
+    assert a.operating_efficiency == pytest.approx(0.93, abs=1e-3)
+    assert a.breakdown_margin == pytest.approx(2.5, rel=1e-3)  # the design B figure fitted
+
+
+def test_incomplete_plate_falls_back_to_the_rules_with_a_finding():
+    m = machine({"frequency": "60 Hz", "voltage": "460 V", "power": "50 hp", "speed": "1775 rpm"})
+    a = assess(m, site(frequency="60 Hz", voltage="460 V", standard="NEMA"))
+    assert a.operating_point_basis == "slip rule"
+    assert "circuit-unavailable" in codes(a, "info")
+    assert a.expected_speed_rpm == pytest.approx(1775)
+
+
+def test_deep_undervoltage_stalls_at_full_load():
+    # 460 V motor on 208 V: T_max falls as V^2 to 0.20 x its rated-voltage value, 2.5 x 0.20 =
+    # 0.51 x rated torque, so the motor cannot carry its rating (analytic from the circuit).
+    a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="208 V", standard="NEMA"))
+    assert a.stalled
+    assert "motor-stall" in codes(a, "problem")
+    rated_torque = 50 * 745.6999 / (1775 * math.pi / 30)
+    assert a.breakdown_torque_nm / rated_torque == pytest.approx(2.5 * (208 / 460) ** 2, rel=1e-3)
+    assert a.stall_torque_nm > a.breakdown_torque_nm
+
+
+def test_low_breakdown_margin_is_warned():
+    # Design C (breakdown 2.2 x rated fitted) at 370 V: 2.2 x (370/460)^2 = 1.42 x rated torque,
+    # below the 1.5 margin (threshold: common practice, no published source).
+    m = machine({**NEMA_50HP}, design_letter="C",
+                load={"type": "constant-torque", "power": "50 hp"})
+    a = assess(m, site(frequency="60 Hz", voltage="370 V", standard="NEMA"))
+    assert a.breakdown_margin == pytest.approx(2.2 * (370 / 460) ** 2, rel=0.03)
+    assert "breakdown-margin" in codes(a, "warning")
+
+
+def test_overflux_notes_that_the_circuit_ignores_saturation():
+    m = machine({"frequency": "60 Hz", "voltage": "400 V", "power": "15 kW", "speed": "1760 rpm",
+                 "efficiency": 0.92, "power_factor": 0.84})
+    a = assess(m, site(frequency="60 Hz", voltage="440 V", standard="IEC"))
+    assert a.flux_ratio == pytest.approx(1.1)
+    assert "circuit-saturation" in codes(a, "info")

@@ -9,7 +9,8 @@ from .data import result_dict
 
 COLUMNS = ("machine", "site", "verdict", "rating_frequency_hz", "rating_voltage_v", "connection",
            "synchronous_speed_rpm", "expected_speed_rpm", "rated_power_kw", "available_power_kw",
-           "load_power_kw", "full_load_current_a", "flux_ratio", "combined_derating",
+           "load_power_kw", "full_load_current_a", "operating_current_a", "flux_ratio",
+           "combined_derating",
            "code_current_a", "finding_codes")
 
 
@@ -31,6 +32,6 @@ def render(assessments, **_) -> str:
             d["machine"], d["site"], d["verdict"], d["rating"]["frequency_hz"],
             d["rating"]["voltage_v"], d["rating"]["connection"], d["synchronous_speed_rpm"],
             d["expected_speed_rpm"], d["rated_power_kw"], d["available_power_kw"],
-            d["load_power_kw"], d["full_load_current_a"], d["flux_ratio"],
+            d["load_power_kw"], d["full_load_current_a"], d["operating_current_a"], d["flux_ratio"],
             d["combined_derating"], d["code_current_a"], codes)])
     return buffer.getvalue()

@@ -47,6 +47,11 @@ def result_dict(a, *, explain: bool = False) -> dict:
         "service_factor_at_site": _r(a.service_factor_at_site, 2),
         "current_basis": a.current_basis,
         "operating_current_a": _r(a.operating_current_a, 1),
+        "operating_power_factor": _r(a.operating_power_factor, 3),
+        "operating_efficiency": _r(a.operating_efficiency, 4),
+        "breakdown_torque_margin": _r(a.breakdown_margin, 2),
+        "operating_point_basis": a.operating_point_basis,
+        "rule_speed_rpm": _r(a.rule_speed_rpm, 1),
         "star_delta_possible": a.star_delta_possible,
         "locked_rotor_current_a": None if lrc is None else {
             "low": _r(lrc[0], 1), "high": None if lrc[1] == float("inf") else _r(lrc[1], 1),

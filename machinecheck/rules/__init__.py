@@ -3,7 +3,18 @@
 Adding a check means adding a rule here, not growing the engine.
 """
 
-from . import connection, current, efficiency, frequency, generator, load, phases, site, supply
+from . import (
+    connection,
+    current,
+    efficiency,
+    frequency,
+    generator,
+    load,
+    operating,
+    phases,
+    site,
+    supply,
+)
 
 RULES = (
     phases.check,
@@ -12,6 +23,7 @@ RULES = (
     connection.check,
     site.check,
     load.check,
+    operating.check,
     generator.check,
     current.check,
     efficiency.check,

@@ -11,9 +11,12 @@ def check(a) -> None:
     if m.load is None or m.is_generator or not a.phases_ok:
         return
     if a.stalled:
+        detail = ("" if a.breakdown_torque_nm is None else
+                  f" ({a.stall_torque_nm:.0f} N m against a breakdown torque of "
+                  f"{a.breakdown_torque_nm:.0f} N m)")
         a.add("load-overload", "problem",
-              "the load needs more torque than the motor can give at this supply: it would "
-              "stall or not reach speed")
+              f"the load needs more torque than the motor can give at this supply{detail}: it "
+              "would stall or not reach speed")
         return
     if a.load_fraction is None:
         return

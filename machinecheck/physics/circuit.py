@@ -1,0 +1,385 @@
+"""Per-phase equivalent circuit of a three-phase induction motor: estimate and operating point.
+
+The circuit is the textbook T-circuit referred to the stator, star-equivalent per phase:
+R1 + jX1 in series with the magnetising reactance jXm in parallel with the rotor branch
+R2/s + jX2. Core loss is lumped with friction and windage as the rotational loss, as in the
+textbook worked examples. Reactances are given at the rated frequency and scale with frequency.
+"""
+
+from __future__ import annotations
+
+import math
+from dataclasses import dataclass
+from functools import lru_cache
+
+from ..errors import DomainError
+
+#: Share of X1 in the locked-rotor reactance X1 + X2 by NEMA design letter (IEEE Std 112,
+#: empirical distribution; from memory). IEC design N is taken as NEMA B and H as C.
+STATOR_LEAKAGE_SHARE = {"A": 0.5, "B": 0.4, "C": 0.3, "D": 0.5, "N": 0.4, "H": 0.3,
+                        "wound-rotor": 0.5}
+#: Design assumed when the plate states none: most general-purpose motors are NEMA B / IEC N.
+DEFAULT_DESIGN = "B"
+#: Breakdown to rated torque ratio the leakage reactance is fitted to, by design letter: typical
+#: catalogue figures (common practice, no published source; NEMA MG 1 12.39 sets minima of
+#: about 200 % and more for designs A and B, from memory). Locked-rotor current is not used:
+#: deep-bar and double-cage rotors make the standstill reactance smaller than the running one.
+BREAKDOWN_RATIO = {"A": 2.5, "B": 2.5, "C": 2.2, "D": 2.75, "N": 2.5, "H": 2.2,
+                   "wound-rotor": 2.5}
+#: Share of the full-load losses taken as rotational (core, friction, windage, stray), the rest
+#: being copper loss (common practice, no published source; typical loss breakdowns put core,
+#: friction, windage and stray together at 35-55 % of the losses).
+ROTATIONAL_LOSS_SHARE = 0.4
+#: Largest disagreement between sqrt(3) V I PF eta and the rated output before the plate current
+#: is left out of the fit (the reference recipe rejects plates off by more than about 5 %).
+PLATE_CONSISTENCY = 0.05
+
+
+@dataclass(frozen=True, slots=True)
+class Circuit:
+    """Per-phase (star-equivalent) circuit parameters at ``frequency_hz``.
+
+    Resistances and reactances in ohms; ``rotational_loss_w`` is the total (three-phase)
+    rotational loss at ``rated_speed_rpm``, scaled with the square of speed elsewhere.
+    """
+
+    r1_ohm: float
+    x1_ohm: float
+    r2_ohm: float
+    x2_ohm: float
+    xm_ohm: float
+    frequency_hz: float
+    poles: int
+    rotational_loss_w: float
+    rated_speed_rpm: float
+    current_fitted: bool = True
+
+
+@dataclass(frozen=True, slots=True)
+class OperatingPoint:
+    """Steady state of the circuit at one slip; powers three-phase [W], torques [N m]."""
+
+    slip: float
+    speed_rpm: float
+    current_a: float
+    power_factor: float
+    input_power_w: float
+    air_gap_power_w: float
+    converted_power_w: float
+    output_power_w: float
+    induced_torque_nm: float
+    shaft_torque_nm: float
+    efficiency: float
+    breakdown_torque_nm: float
+    breakdown_slip: float
+
+
+def _design(design: str | None) -> str:
+    if design is None:
+        return DEFAULT_DESIGN
+    key = design.strip()
+    key = key.upper() if len(key) == 1 else key.lower()
+    return key if key in STATOR_LEAKAGE_SHARE else DEFAULT_DESIGN
+
+
+def _branches(z_in: complex, r1: float, x_lr: float, share: float, slip: float):
+    """(x1, x2, r2, xm) for a locked-rotor reactance, or None when no circuit fits it."""
+    x1, x2 = share * x_lr, (1.0 - share) * x_lr
+    y = 1.0 / (z_in - complex(r1, x1))
+    g, b = y.real, -y.imag
+    disc = 1.0 - 4.0 * g * g * x2 * x2
+    if g <= 0.0 or disc <= 0.0:
+        return None
+    r = (1.0 + math.sqrt(disc)) / (2.0 * g)  # the rotor branch carries all of G
+    b_m = b - x2 / (r * r + x2 * x2)
+    if b_m <= 0.0:
+        return None
+    return x1, x2, r * slip, 1.0 / b_m
+
+
+@lru_cache(maxsize=4096)
+def estimate(power_w: float, voltage_v: float, frequency_hz: float, poles: int,
+             speed_rpm: float, *, current_a: float | None = None,
+             power_factor: float | None = None, efficiency: float | None = None,
+             design: str | None = None) -> Circuit:
+    """Estimate the equivalent circuit from a three-phase nameplate rating set.
+
+    Parameters
+    ----------
+    power_w : rated output [W]
+    voltage_v : rated line-to-line voltage of the connection [V]
+    frequency_hz : rated frequency [Hz]
+    poles : number of poles [-]
+    speed_rpm : rated full-load speed [rpm]
+    current_a : rated line current [A], optional
+    power_factor : rated power factor [-], optional
+    efficiency : rated efficiency [-], optional; two of current, power factor and efficiency
+        are needed
+    design : NEMA design letter (A-D) or IEC design (N, H), optional; sets the leakage split
+        and the breakdown torque the leakage is fitted to
+
+    Returns
+    -------
+    Circuit : parameters that reproduce the rated point exactly (speed, output, efficiency,
+        power factor, and the current when the plate is self-consistent within 5 %)
+
+    Raises
+    ------
+    DomainError : when the plate lacks the figures, or they cannot belong to an induction
+        motor (efficiency above 1 - slip, slip outside 0-50 %, power factor not below 1)
+
+    Notes
+    -----
+    1. P_in = P_out / eta (or sqrt(3) V I PF); S = sqrt(3) V I (or P_in / PF); Z_in =
+       V_ph / I_ph at angle arccos(P_in / S).
+    2. Losses L = P_in - P_out split: rotational P_rot = 0.4 L (common practice), rotor copper
+       loss s P_ag with P_ag = P_in - P_scl, the rest stator copper loss P_scl = 3 I^2 R1.
+    3. For a trial locked-rotor reactance X1 + X2, split by design letter (IEEE Std 112
+       empirical distribution), the parallel branch Z_in - R1 - jX1 has admittance G - jB; the
+       rotor branch carries all of G, so R2/s solves G = r / (r^2 + X2^2) (larger root) and
+       1/Xm = B - X2 / (r^2 + X2^2).
+    4. X1 + X2 is bisected until the breakdown torque is the design's typical multiple of the
+       rated torque (or as near as a circuit allows).
+
+    References
+    ----------
+    .. [1] IEEE Std 112-2017, Standard Test Procedure for Polyphase Induction Motors and
+       Generators: empirical distribution of locked-rotor reactance (X1/X2 by design letter).
+    .. [2] S. J. Chapman, *Electric Machinery Fundamentals*, 4th ed., ch. 7: the equivalent
+       circuit, power flow with rotational losses, and the determination of circuit parameters.
+    .. [3] S. Lee, ..., P. Sen et al., "Estimation of Induction Motor Equivalent Circuit
+       Parameters from Nameplate Data", NAPS 2012: estimating the circuit from nameplate only.
+    """
+    if not (power_w > 0 and voltage_v > 0 and frequency_hz > 0 and speed_rpm > 0):
+        raise DomainError("needs rated output, voltage, frequency and speed")
+    n_s = 120.0 * frequency_hz / poles
+    slip = (n_s - speed_rpm) / n_s
+    if not 0.0 < slip < 0.5:
+        raise DomainError(f"rated slip {100 * slip:.1f} % is not that of a loaded induction motor")
+    root3v = math.sqrt(3.0) * voltage_v
+    if efficiency is not None:
+        p_in = power_w / efficiency
+    elif current_a and power_factor:
+        p_in = root3v * current_a * power_factor
+    else:
+        raise DomainError("needs two of efficiency, power factor and current")
+    current_fitted = bool(current_a)
+    if current_a:
+        s_in = root3v * current_a
+        if power_factor and abs(p_in / s_in / power_factor - 1.0) > PLATE_CONSISTENCY:
+            s_in, current_fitted = p_in / power_factor, False
+    elif power_factor:
+        s_in = p_in / power_factor
+    else:
+        raise DomainError("needs two of efficiency, power factor and current")
+    if s_in <= p_in * (1.0 + 1e-6):
+        raise DomainError("power factor must be below 1 for an induction motor")
+    if power_w >= (1.0 - slip) * p_in:
+        raise DomainError(f"efficiency {100 * power_w / p_in:.1f} % is not possible at "
+                          f"{100 * slip:.1f} % slip (at most 1 - slip)")
+
+    v_ph = voltage_v / math.sqrt(3.0)
+    i_ph = s_in / (3.0 * v_ph)
+    z_in = complex(p_in, math.sqrt(s_in * s_in - p_in * p_in)) / (3.0 * i_ph * i_ph)
+
+    losses = p_in - power_w
+    after_rotor = (losses - slip * p_in) / (1.0 - slip)
+    p_scl = max((losses * (1.0 - ROTATIONAL_LOSS_SHARE) - slip * p_in) / (1.0 - slip),
+                0.25 * after_rotor)
+    p_rot = losses - p_scl - slip * (p_in - p_scl)
+    r1 = p_scl / (3.0 * i_ph * i_ph)
+
+    key = _design(design)
+    share = STATOR_LEAKAGE_SHARE[key]
+    target = BREAKDOWN_RATIO[key] * power_w / (speed_rpm * math.pi / 30.0)
+    lo, hi = 0.0, abs(z_in)
+    best = None
+    for _ in range(60):
+        x_lr = 0.5 * (lo + hi)
+        fit = _branches(z_in, r1, x_lr, share, slip)
+        if fit is None:
+            hi = x_lr
+            continue
+        best = fit
+        trial = Circuit(r1, fit[0], fit[2], fit[1], fit[3], frequency_hz, poles, p_rot,
+                        speed_rpm)
+        if breakdown(trial, voltage_v, frequency_hz)[0] > target:
+            lo = x_lr
+        else:
+            hi = x_lr
+        if hi - lo < 1e-9 * abs(z_in):
+            break
+    if best is None:
+        raise DomainError("the plate figures do not fit an induction-motor circuit")
+    x1, x2, r2, xm = best
+    return Circuit(r1_ohm=r1, x1_ohm=x1, r2_ohm=r2, x2_ohm=x2, xm_ohm=xm,
+                   frequency_hz=frequency_hz, poles=poles, rotational_loss_w=p_rot,
+                   rated_speed_rpm=speed_rpm, current_fitted=current_fitted)
+
+
+def _thevenin(c: Circuit, v_ph: float, f_ratio: float):
+    x1, xm = c.x1_ohm * f_ratio, c.xm_ohm * f_ratio
+    denominator = c.r1_ohm * c.r1_ohm + (x1 + xm) ** 2
+    v_th = v_ph * xm / math.sqrt(denominator)
+    z_th = complex(0.0, xm) * complex(c.r1_ohm, x1) / complex(c.r1_ohm, x1 + xm)
+    return v_th, z_th.real, z_th.imag
+
+
+def breakdown(c: Circuit, voltage_v: float, frequency_hz: float) -> tuple[float, float]:
+    """Breakdown (pull-out) torque and the slip at which it occurs.
+
+    s_max = R2 / sqrt(R_th^2 + (X_th + X2)^2);
+    T_max = 3 V_th^2 / (2 w_sync (R_th + sqrt(R_th^2 + (X_th + X2)^2)))
+
+    Parameters
+    ----------
+    c : the circuit
+    voltage_v : line-to-line supply voltage [V]
+    frequency_hz : supply frequency [Hz]
+
+    Returns
+    -------
+    (float, float) : breakdown torque [N m] and breakdown slip [-]
+
+    References
+    ----------
+    .. [1] S. J. Chapman, *Electric Machinery Fundamentals*, 4th ed., sec. 7.6 (maximum torque
+       from the Thevenin equivalent).
+    """
+    f_ratio = frequency_hz / c.frequency_hz
+    v_th, r_th, x_th = _thevenin(c, voltage_v / math.sqrt(3.0), f_ratio)
+    x_total = x_th + c.x2_ohm * f_ratio
+    root = math.sqrt(r_th * r_th + x_total * x_total)
+    w_sync = 4.0 * math.pi * frequency_hz / c.poles
+    return 3.0 * v_th * v_th / (2.0 * w_sync * (r_th + root)), c.r2_ohm / root
+
+
+def rotational_loss(c: Circuit, speed_rpm: float) -> float:
+    """Rotational loss at ``speed_rpm`` [W], scaled as speed squared from the rated speed.
+
+    A middle course between friction (~n), windage (~n^3) and core loss at constant V/f (~f^1.5);
+    common practice, no published source.
+    """
+    return c.rotational_loss_w * (speed_rpm / c.rated_speed_rpm) ** 2
+
+
+def operating_point(c: Circuit, voltage_v: float, frequency_hz: float, slip: float, *,
+                    rotational_loss_w: float | None = None) -> OperatingPoint:
+    """The circuit's steady state at a given slip.
+
+    I1 = V_ph / Z_in; P_in = 3 V_ph I1 cos(phi); P_ag = P_in - 3 I1^2 R1;
+    P_conv = (1 - s) P_ag; P_out = P_conv - P_rot; T_ind = P_ag / w_sync; T_load = P_out / w_m.
+
+    Parameters
+    ----------
+    c : the circuit
+    voltage_v : line-to-line supply voltage [V]
+    frequency_hz : supply frequency [Hz]
+    slip : per-unit slip, 0 < s <= 1 [-]
+    rotational_loss_w : rotational loss at this speed [W]; by default scaled from the rated
+        speed by :func:`rotational_loss`
+
+    Returns
+    -------
+    OperatingPoint
+
+    References
+    ----------
+    .. [1] S. J. Chapman, *Electric Machinery Fundamentals*, 4th ed., sec. 7.4-7.5 and
+       Example 7-5 (power flow and torque of a 460 V, 25 hp, four-pole motor).
+    """
+    if not 0.0 < slip <= 1.0:
+        raise DomainError(f"slip must be in (0, 1], got {slip!r}")
+    f_ratio = frequency_hz / c.frequency_hz
+    v_ph = voltage_v / math.sqrt(3.0)
+    z_rotor = complex(c.r2_ohm / slip, c.x2_ohm * f_ratio)
+    z_m = complex(0.0, c.xm_ohm * f_ratio)
+    z_in = complex(c.r1_ohm, c.x1_ohm * f_ratio) + z_m * z_rotor / (z_m + z_rotor)
+    i1 = v_ph / abs(z_in)
+    pf = z_in.real / abs(z_in)
+    p_in = 3.0 * v_ph * i1 * pf
+    p_ag = p_in - 3.0 * i1 * i1 * c.r1_ohm
+    p_conv = (1.0 - slip) * p_ag
+    n_s = 120.0 * frequency_hz / c.poles
+    speed = (1.0 - slip) * n_s
+    if rotational_loss_w is None:
+        rotational_loss_w = rotational_loss(c, speed)
+    p_out = p_conv - rotational_loss_w
+    w_sync = n_s * math.pi / 30.0
+    w_m = speed * math.pi / 30.0
+    t_max, s_max = breakdown(c, voltage_v, frequency_hz)
+    return OperatingPoint(
+        slip=slip, speed_rpm=speed, current_a=i1, power_factor=pf, input_power_w=p_in,
+        air_gap_power_w=p_ag, converted_power_w=p_conv, output_power_w=p_out,
+        induced_torque_nm=p_ag / w_sync, shaft_torque_nm=p_out / w_m if w_m > 0 else 0.0,
+        efficiency=p_out / p_in if p_in > 0 else 0.0, breakdown_torque_nm=t_max,
+        breakdown_slip=s_max)
+
+
+def solve(c: Circuit, voltage_v: float, frequency_hz: float, load_torque) -> OperatingPoint | None:
+    """Operating point where the shaft torque meets the load on the stable branch.
+
+    Solves T_ind(s) = T_load(n) + P_rot(n) / w_m for 0 < s <= s_max by bracketed regula falsi
+    (Illinois), using T_ind = 3 V_th^2 (R2/s) / (w_sync ((R_th + R2/s)^2 + (X_th + X2)^2)).
+
+    Parameters
+    ----------
+    c : the circuit
+    voltage_v : line-to-line supply voltage [V]
+    frequency_hz : supply frequency [Hz]
+    load_torque : callable, shaft speed [rpm] -> load torque [N m]
+
+    Returns
+    -------
+    OperatingPoint, or None when the load needs more than the breakdown torque (the motor
+    stalls or does not reach speed)
+
+    References
+    ----------
+    .. [1] S. J. Chapman, *Electric Machinery Fundamentals*, 4th ed., sec. 7.5 (induced torque
+       from the Thevenin equivalent).
+    """
+    f_ratio = frequency_hz / c.frequency_hz
+    v_th, r_th, x_th = _thevenin(c, voltage_v / math.sqrt(3.0), f_ratio)
+    x_total = x_th + c.x2_ohm * f_ratio
+    x2sq = x_total * x_total
+    n_s = 120.0 * frequency_hz / c.poles
+    w_sync = n_s * math.pi / 30.0
+    k = 3.0 * v_th * v_th / w_sync
+    r2 = c.r2_ohm
+    p_rot, n_rot = c.rotational_loss_w, c.rated_speed_rpm
+
+    def excess(s):
+        r = r2 / s
+        n = (1.0 - s) * n_s
+        t_ind = k * r / ((r_th + r) ** 2 + x2sq)
+        # rotational torque P_rot (n / n_rated)^2 / w_m
+        return t_ind - load_torque(n) - p_rot * n / (n_rot * n_rot) * (30.0 / math.pi)
+
+    s_max = r2 / math.sqrt(r_th * r_th + x2sq)
+    hi = min(s_max, 1.0)
+    f_hi = excess(hi)
+    if f_hi < 0.0:
+        return None
+    lo = 1e-6
+    f_lo = excess(lo)
+    if f_lo >= 0.0:
+        return operating_point(c, voltage_v, frequency_hz, lo)
+    side = 0
+    s = lo
+    for _ in range(100):
+        s = (lo * f_hi - hi * f_lo) / (f_hi - f_lo)
+        f_s = excess(s)
+        if abs(f_s) < 1e-9 * k or hi - lo < 1e-12:
+            break
+        if f_s < 0.0:
+            lo, f_lo = s, f_s
+            if side == -1:
+                f_hi *= 0.5
+            side = -1
+        else:
+            hi, f_hi = s, f_s
+            if side == 1:
+                f_lo *= 0.5
+            side = 1
+    return operating_point(c, voltage_v, frequency_hz, s)
