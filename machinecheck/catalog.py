@@ -270,8 +270,9 @@ def load_catalog(path) -> Catalog:
     """Read and validate a catalog file (TOML, or CSV by its ending)."""
     name = os.fspath(path)
     if name.lower().endswith(".csv"):
-        raise InputError("CSV inventories are not read yet: give a TOML catalog (see "
-                         "docs/format.md)", file=name)
+        from .inventory import load_inventory
+
+        return load_inventory(name)
     text = read_text(name)
     data = parse_toml(text, name)
     return catalog_from_data(data, name, text)

@@ -13,6 +13,7 @@ import click
 
 from . import __version__
 from .errors import InputError, InputErrors, MachinecheckError
+from .report import FORMATS
 
 EXIT_OK, EXIT_PROBLEM, EXIT_INPUT = 0, 1, 2
 
@@ -210,7 +211,7 @@ def write_output(text: str, path: str, inputs) -> None:
     for source in inputs:
         if source and os.path.exists(source) and os.path.exists(target) and os.path.samefile(
                 source, target):
-            raise InputError("refusing to overwrite an input file with the report", file=path)
+            raise InputError("refusing to overwrite an input file with the output", file=path)
     handle, temporary = tempfile.mkstemp(prefix=".machinecheck-", suffix=".tmp", dir=folder)
     try:
         with os.fdopen(handle, "w", encoding="utf-8", newline="") as stream:
@@ -273,7 +274,7 @@ def _machine_options(func):
 @click.option("--site", "site_ids", multiple=True, help="only this site id (repeatable)")
 @click.option("--machine", "machine_ids", multiple=True, help="only this machine id (repeatable)")
 @click.option("--format", "fmt", default="table", show_default=True,
-              type=click.Choice(["table", "json", "markdown", "csv"]))
+              type=click.Choice(FORMATS))
 @click.option("--output", "-o", type=click.Path(), help="write the report to this file")
 @click.option("--problems-only", is_flag=True, help="keep only pairs that are not compatible")
 @click.option("--explain", is_flag=True, help="show the working with numbers substituted")
@@ -453,7 +454,9 @@ def validate(files):
     for path in files:
         try:
             if path.lower().endswith(".csv"):
-                load_catalog(path)
+                count = len(load_catalog(path).machines)
+                click.echo(f"ok: {path}: {count} machines")
+                continue
             text = read_text(path)
             data = parse_toml(text, path)
             if "site" in data and "machine" not in data:
@@ -468,6 +471,44 @@ def validate(files):
             errors.append(exc)
     if errors:
         _fail(errors)
+
+
+@main.command()
+@click.argument("source", type=click.Path(dir_okay=True))
+@click.option("--to", "target", required=True, type=click.Choice(["toml", "csv"]),
+              help="format to write")
+@click.option("--output", "-o", type=click.Path(), help="write to this file (default stdout)")
+@_report_errors
+def convert(source, target, output):
+    """Convert a catalog between a CSV inventory and TOML (validated first)."""
+    from .catalog import catalog_from_data, parse_toml, read_text
+    from .inventory import load_inventory, read_inventory, to_csv, to_toml
+
+    if source.lower().endswith(".csv"):
+        load_inventory(source)
+        data = read_inventory(source)[0]
+    else:
+        text = read_text(source)
+        data = parse_toml(text, source)
+        catalog_from_data(data, source, text)
+    result = to_toml(data) if target == "toml" else to_csv(data)
+    if output:
+        write_output(result, output, [source])
+        click.echo(f"wrote {len(data['machine'])} machines to {output}", err=True)
+    else:
+        click.echo(result, nl=False)
+
+
+@main.command()
+@click.argument("which", type=click.Choice(["catalog", "sites"]))
+@_report_errors
+def schema(which):
+    """Print the JSON Schema of the catalog or sites file format (for editors)."""
+    import json
+
+    from .schema import catalog_schema, sites_schema
+
+    click.echo(json.dumps(catalog_schema() if which == "catalog" else sites_schema(), indent=2))
 
 
 if __name__ == "__main__":  # pragma: no cover

@@ -58,7 +58,7 @@ class InputError(MachinecheckError):
             parts.append(f"line {self.line}")
         if self.item is not None:
             parts.append(f"{self.item!r}")
-        if self.column is not None:
+        if self.column:
             parts.append(f"column {self.column!r}")
         elif self.key is not None:
             parts.append(f"{self.key}")

@@ -142,6 +142,34 @@ def test_interrupt_leaves_no_output(tmp_path, monkeypatch):
     assert list(tmp_path.iterdir()) == []
 
 
-def test_csv_inventory_refused_clearly(write):
-    path = write("inventory.csv", "id,frequency\nM-1,50 Hz\n")
-    check_failure(run("check", path), "inventory.csv", "CSV inventories are not read yet")
+# Spreadsheet inventories: the same validation, with row and column named.
+INVENTORY_HEADER = "id,phases,frequency,voltage,current,power,speed,efficiency\n"
+
+
+@pytest.mark.parametrize(("body", "needles"), [
+    ("M-1,3,50 Hz,400 V,20 A,11 kW,1460 rpm,91 %\nM-1,3,60 Hz,460 V,18 A,11 kW,17.6 rpm,91 %\n",
+     ("row 3", "'M-1'", "column 'speed'", "pole")),
+    ("M-1,3,50 Hz,400 V,20 A,11 kW,1460 rpm,91\n", ("row 2", "column 'efficiency'", "91 %")),
+    ("M-1,3,50 Hz,400 V,20 A,eleven kW,1460 rpm,91 %\n", ("row 2", "column 'power'")),
+    ("M-1,3,50 Hz,400 V,20 A,11 kW,1460 rpm,91 %\nM-1,1,60 Hz,460 V,18 A,11 kW,1760 rpm,91 %\n",
+     ("row 3", "column 'phases'", "differs from row 2")),
+    (",3,50 Hz,400 V,20 A,11 kW,1460 rpm,91 %\n", ("row 2", "column 'id'", "no machine id")),
+    ("M-1,3,50 Hz,400 V,20 A,11 kW,1460 rpm,91 %,extra\n", ("row 2", "9 cells for 8 columns")),
+    ("M-1,3,50 Hz,400 V; 690 V,20 A,11 kW,1460 rpm,91 %\n",
+     ("row 2", "column 'current'", "1 currents for 2 voltages")),
+])
+def test_inventory_errors_name_row_and_column(write, body, needles):
+    path = write("inventory.csv", INVENTORY_HEADER + body)
+    check_failure(run("check", path), "inventory.csv", *needles)
+
+
+@pytest.mark.parametrize(("text", "needles"), [
+    ("id,frequncy,voltage\nM-1,50 Hz,400 V\n", ("row 1", "column 'frequncy'", "'frequency'")),
+    ("description,frequency\nx,50 Hz\n", ("row 1", "no 'id' column")),
+    ("id,voltage,voltage\nM-1,400 V,400 V\n", ("column 'voltage'", "twice")),
+    ("id,frequency\n", ("row 2", "no machine rows")),
+    ("", ("file is empty",)),
+])
+def test_inventory_layout_errors(write, text, needles):
+    path = write("inventory.csv", text)
+    check_failure(run("check", path), "inventory.csv", *needles)

@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+import math
+
 from ..errors import DomainError
 
 _EPS = 1e-9  # boundary points belong to the zone
@@ -110,3 +112,49 @@ def is_normal_pairing(system_voltage_v: float, motor_voltage_v: float) -> bool:
         if abs(system_voltage_v - system) < 0.5 and abs(motor_voltage_v - motor) < 0.5:
             return True
     return False
+
+
+def _polygon(constraints) -> list[tuple[float, float]]:
+    """Vertices (df, dU) of the convex region a*df + b*dU <= c, counter-clockwise."""
+    points = []
+    for i, (a1, b1, c1) in enumerate(constraints):
+        for a2, b2, c2 in constraints[i + 1:]:
+            det = a1 * b2 - a2 * b1
+            if abs(det) < 1e-12:
+                continue
+            x = (c1 * b2 - c2 * b1) / det
+            y = (a1 * c2 - a2 * c1) / det
+            if all(a * x + b * y <= c + 1e-9 for a, b, c in constraints):
+                point = (round(x, 9) + 0.0, round(y, 9) + 0.0)
+                if point not in points:
+                    points.append(point)
+    cx = sum(p[0] for p in points) / len(points)
+    cy = sum(p[1] for p in points) / len(points)
+    return sorted(points, key=lambda p: math.atan2(p[1] - cy, p[0] - cx))
+
+
+def iec_zone_outline(name: str, *, generator: bool = False) -> list[tuple[float, float]]:
+    """Corners (df, dU) per unit of IEC 60034-1 zone ``name`` ("A" or "B"), for drawing.
+
+    The same hexagon that :func:`iec_zone` tests: |dU| <= dv, flo <= df <= fhi,
+    |dU - df| <= cut.
+
+    References
+    ----------
+    .. [1] IEC 60034-1:2022, clause 7.3, figure of voltage and frequency limits.
+    """
+    dv, flo, fhi, cut = (IEC_GENERATOR_ZONES if generator else IEC_MOTOR_ZONES)[name]
+    return _polygon([(0, 1, dv), (0, -1, dv), (1, 0, fhi), (-1, 0, -flo),
+                     (-1, 1, cut), (1, -1, cut)])
+
+
+def nema_outline() -> list[tuple[float, float]]:
+    """Corners (df, dV) per unit of the NEMA MG 1 12.44.1 running-variation region.
+
+    References
+    ----------
+    .. [1] NEMA MG 1-2016, 12.44.1: |dV| <= 10 %, |df| <= 5 %, |dV| + |df| <= 10 %.
+    """
+    v, f, s = NEMA_VOLTAGE_LIMIT, NEMA_FREQUENCY_LIMIT, NEMA_COMBINED_LIMIT
+    return _polygon([(0, 1, v), (0, -1, v), (1, 0, f), (-1, 0, f),
+                     (1, 1, s), (1, -1, s), (-1, 1, s), (-1, -1, s)])

@@ -4,4 +4,4 @@ CAUTION = ("Caution: figures are estimates from nameplate data. Verify with the 
            "before ordering or connecting; de-energise, lock out and prove dead before any "
            "reconnection; follow local electrical codes and licensed practice.")
 
-FORMATS = ("table", "json", "markdown", "csv")
+FORMATS = ("table", "json", "markdown", "html", "csv")

@@ -1,0 +1,91 @@
+"""CSV inventories: reading, conversion to TOML and back, the same results either way."""
+
+import json
+
+from click.testing import CliRunner
+
+from machinecheck.catalog import load_catalog
+from machinecheck.cli import _demo_path, main
+
+ENV = {"NO_COLOR": "1", "COLUMNS": "120"}
+
+# The bundled example inventory (invented machines), also shown in docs/format.md.
+with open(_demo_path("inventory.csv"), encoding="utf-8") as _handle:
+    INVENTORY = _handle.read()
+
+
+def run(*args):
+    return CliRunner().invoke(main, list(args), env=ENV)
+
+
+def test_rows_with_one_id_make_a_multi_rating_plate(write):
+    path = write("inventory.csv", INVENTORY)
+    catalog = load_catalog(path)
+    first, second = catalog.machines
+    assert [r.frequency_hz for r in first.ratings] == [50.0, 60.0]
+    assert [c.name for c in first.ratings[0].connections] == ["delta", "star"]
+    assert first.ratings[0].connections[1].current_a == 16.4
+    assert first.load.type == "centrifugal" and first.load.power_w == 12_000.0
+    assert second.ratings[0].connections[0].voltage_v == 230.0  # bare numbers: default units
+    assert second.ratings[0].speed_rpm == 1760.0
+    assert second.description == "Conveyor drive, 10 hp"
+
+
+def _results(*args):
+    result = run("check", *args, "--format", "json")
+    assert result.exit_code in (0, 1), result.output
+    return json.loads(result.output)["results"]
+
+
+def test_inventory_to_toml_gives_the_same_results(write, tmp_path):
+    path = write("inventory.csv", INVENTORY)
+    toml_path = tmp_path / "catalog.toml"
+    converted = run("convert", path, "--to", "toml", "--output", str(toml_path))
+    assert converted.exit_code == 0, converted.output
+    assert _results(path) == _results(str(toml_path))
+
+
+def test_demo_catalog_round_trips_through_csv(tmp_path):
+    csv_path = tmp_path / "fleet.csv"
+    toml_path = tmp_path / "fleet.toml"
+    assert run("convert", _demo_path("fleet.toml"), "--to", "csv", "-o", str(csv_path)).exit_code == 0
+    assert run("convert", str(csv_path), "--to", "toml", "-o", str(toml_path)).exit_code == 0
+    demo = _results()
+    assert _results(str(csv_path)) == demo
+    assert _results(str(toml_path)) == demo
+
+
+def test_convert_validates_first_and_writes_nothing_on_error(write, tmp_path):
+    path = write("bad.csv", "id,frequency,voltage,power,speed\nM-1,50 Hz,400 V,11 kW,1500 rpm\n")
+    out = tmp_path / "out.toml"
+    result = run("convert", path, "--to", "toml", "-o", str(out))
+    assert result.exit_code == 2
+    assert "row 2" in result.output and "column 'speed'" in result.output
+    assert not out.exists()
+
+
+def test_convert_refuses_to_overwrite_its_source(write):
+    path = write("inventory.csv", INVENTORY)
+    result = run("convert", path, "--to", "csv", "-o", path)
+    assert result.exit_code == 2
+    assert "refusing to overwrite" in result.output
+    with open(path, encoding="utf-8") as handle:
+        assert handle.read() == INVENTORY
+
+
+def test_toml_strings_are_escaped(write):
+    from machinecheck.inventory import to_toml
+
+    text = to_toml({"machine": [{"id": 'A "quoted" \\ id', "description": "tab\there\x7f",
+                                 "rating": [{"frequency": 50, "voltage": ["400 V"]}]}]})
+    from machinecheck.catalog import tomllib
+
+    data = tomllib.loads(text)
+    assert data["machine"][0]["id"] == 'A "quoted" \\ id'
+    assert data["machine"][0]["description"] == "tab\there\x7f"
+
+
+def test_validate_reads_inventories(write):
+    result = run("validate", write("inventory.csv", INVENTORY))
+    assert result.exit_code == 0
+    assert "2 machines" in result.output
