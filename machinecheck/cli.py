@@ -197,8 +197,11 @@ def _select(items, wanted, what):
     return [item for item in items if item.id in chosen]
 
 
-def write_output(text: str, path: str, inputs) -> None:
-    """Write ``text`` to ``path`` atomically; never onto an input file, nothing left on error."""
+def write_output(text, path: str, inputs) -> None:
+    """Write ``text`` (a string, or pieces of one) to ``path`` atomically.
+
+    Never onto an input file; nothing is left behind on error or Ctrl-C.
+    """
     import contextlib
     import tempfile
 
@@ -215,7 +218,8 @@ def write_output(text: str, path: str, inputs) -> None:
     handle, temporary = tempfile.mkstemp(prefix=".machinecheck-", suffix=".tmp", dir=folder)
     try:
         with os.fdopen(handle, "w", encoding="utf-8", newline="") as stream:
-            stream.write(text)
+            for piece in [text] if isinstance(text, str) else text:
+                stream.write(piece)
         if os.path.exists(target):
             os.chmod(temporary, os.stat(target).st_mode & 0o7777)
         else:
@@ -292,33 +296,58 @@ def check(catalogs, sites_file, site_ids, machine_ids, fmt, output, problems_onl
     machines, sites = _load_inputs(catalogs, sites_file, values)
     machines = _select(machines, machine_ids, "machine")
     sites = _select(sites, site_ids, "site")
-    from .check import assess_all
-
-    progress = None
+    inputs = ([m.source for m in machines] + [s.source for s in sites] + list(catalogs)
+              + ([sites_file] if sites_file else []))
     bar = None
     if sys.stderr.isatty() and len(machines) * len(sites) > 2000:
         bar = click.progressbar(length=len(machines), label="checking", file=sys.stderr)
         bar.__enter__()
-
-        def progress():
-            bar.update(1)
     try:
-        results = assess_all(machines, sites, explain=explain, progress=progress)
+        if fmt in STREAMED_FORMATS:
+            tally, text = _streamed(machines, sites, fmt, explain, problems_only, bar)
+        else:
+            tally, text = _rendered(machines, sites, fmt, explain, problems_only, matrix, bar,
+                                    to_terminal=output is None)
+        if output:
+            write_output(text, output, inputs)
+        else:
+            for piece in text:
+                click.echo(piece, nl=False)
     finally:
         if bar is not None:
             bar.__exit__(None, None, None)
-    failing = [a for a in results if a.verdict == "incompatible" or
-               (strict and a.verdict == "conditional")]
-    shown = [a for a in results if a.verdict != "compatible"] if problems_only else results
-    text = render(fmt, shown, explain=explain, matrix=matrix, sites=sites, machines=machines,
-                  to_terminal=output is None)
     if output:
-        write_output(text, output, [m.source for m in machines] + [s.source for s in sites]
-                     + list(catalogs) + ([sites_file] if sites_file else []))
-        click.echo(f"wrote {len(shown)} results to {output}", err=True)
-    else:
-        click.echo(text, nl=False)
+        click.echo(f"wrote {tally.shown} results to {output}", err=True)
+    failing = tally.counts["incompatible"] + (tally.counts["conditional"] if strict else 0)
     sys.exit(EXIT_PROBLEM if failing else EXIT_OK)
+
+
+STREAMED_FORMATS = ("json", "csv")
+
+
+def _streamed(machines, sites, fmt, explain, problems_only, bar):
+    """A streamed format: checked and written in chunks (in parallel on a large fleet)."""
+    from .runner import Tally, stream
+
+    tally = Tally()
+    return tally, stream(machines, sites, fmt, explain=explain, problems_only=problems_only,
+                         tally=tally, progress=None if bar is None else bar.update)
+
+
+def _rendered(machines, sites, fmt, explain, problems_only, matrix, bar, *, to_terminal):
+    """A format that sorts and groups (table, markdown, html): every pair kept, then rendered."""
+    from .check import assess_all
+    from .runner import Tally
+
+    progress = None if bar is None else (lambda: bar.update(1))
+    results = assess_all(machines, sites, explain=explain, progress=progress)
+    tally = Tally()
+    for a in results:
+        tally.counts[a.verdict] += 1
+    shown = [a for a in results if a.verdict != "compatible"] if problems_only else results
+    tally.shown = len(shown)
+    return tally, [render(fmt, shown, explain=explain, matrix=matrix, sites=sites,
+                          machines=machines, to_terminal=to_terminal)]
 
 
 def render(fmt, results, *, explain=False, matrix=False, sites=(), machines=(), to_terminal=True):

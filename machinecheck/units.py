@@ -64,6 +64,11 @@ def registry():
     return _registry
 
 
+#: Whole quantity strings already parsed ("50 Hz", "400 V" recur across a fleet), bounded.
+_values: dict[tuple[str, str], float] = {}
+_VALUES_LIMIT = 200_000
+
+
 def _conversion(unit: str, kind: str) -> tuple[float, float] | str:
     """Scale and offset taking ``unit`` to the internal unit of ``kind``, or an error text."""
     key = (unit, kind)
@@ -138,6 +143,10 @@ def parse(value, kind: str) -> float:
     InputError
         For text that is not a number with a unit of this kind, or a non-finite number.
     """
+    if type(value) is str:
+        known = _values.get((value, kind))
+        if known is not None:
+            return known
     _, default, default_scale, _, expected = KINDS[kind]
     if isinstance(value, bool):
         raise InputError(f"expected {expected}, got {value!r}")
@@ -159,6 +168,9 @@ def parse(value, kind: str) -> float:
     result = number * scale + offset
     if not math.isfinite(result):
         raise InputError(f"expected a finite number, got {value!r}")
+    if len(_values) >= _VALUES_LIMIT:
+        _values.clear()
+    _values[(value, kind)] = result
     return result
 
 

@@ -192,23 +192,47 @@ def estimate(power_w: float, voltage_v: float, frequency_hz: float, poles: int,
     key = _design(design)
     share = STATOR_LEAKAGE_SHARE[key]
     target = BREAKDOWN_RATIO[key] * power_w / (speed_rpm * math.pi / 30.0)
-    lo, hi = 0.0, abs(z_in)
-    best = None
-    for _ in range(60):
-        x_lr = 0.5 * (lo + hi)
+    w_sync = 4.0 * math.pi * frequency_hz / poles
+
+    def excess(x_lr):
+        """(log T_max / target, branches) for a trial leakage, or (None, None) if infeasible."""
         fit = _branches(z_in, r1, x_lr, share, slip)
         if fit is None:
-            hi = x_lr
-            continue
-        best = fit
-        trial = Circuit(r1, fit[0], fit[2], fit[1], fit[3], frequency_hz, poles, p_rot,
-                        speed_rpm)
-        if breakdown(trial, voltage_v, frequency_hz)[0] > target:
-            lo = x_lr
+            return None, None
+        x1, x2, _, xm = fit
+        denominator = r1 * r1 + (x1 + xm) ** 2
+        z_th = complex(0.0, xm) * complex(r1, x1) / complex(r1, x1 + xm)
+        x_total = z_th.imag + x2
+        t_max = 3.0 * v_ph * v_ph * xm * xm / denominator / (
+            2.0 * w_sync * (z_th.real + math.sqrt(z_th.real ** 2 + x_total ** 2)))
+        return math.log(t_max / target), fit
+
+    # T_max falls as the leakage grows: bracket the root, then regula falsi (Illinois) with a
+    # bisection step whenever the secant leaves the bracket or the circuit does not fit.
+    lo, hi = 0.0, abs(z_in)
+    f_lo, best = excess(1e-6 * hi)
+    f_hi = None
+    x = 0.15 * hi  # a typical locked-rotor reactance, per unit of |Z_in|
+    for _ in range(60):
+        f_x, fit = excess(x)
+        if f_x is None:
+            hi, f_hi = x, None
         else:
-            hi = x_lr
+            best = fit
+            if abs(f_x) < 1e-7:
+                break
+            if f_x > 0.0:
+                lo, f_lo = x, f_x
+            else:
+                hi, f_hi = x, f_x
         if hi - lo < 1e-9 * abs(z_in):
             break
+        if f_lo is not None and f_hi is not None and f_lo > 0.0 and f_hi < 0.0:
+            x = (lo * f_hi - hi * f_lo) / (f_hi - f_lo)
+            if not lo < x < hi:
+                x = 0.5 * (lo + hi)
+        else:
+            x = 0.5 * (lo + hi)
     if best is None:
         raise DomainError("the plate figures do not fit an induction-motor circuit")
     x1, x2, r2, xm = best

@@ -10,8 +10,8 @@ from .data import result_dict
 COLUMNS = ("machine", "site", "verdict", "rating_frequency_hz", "rating_voltage_v", "connection",
            "synchronous_speed_rpm", "expected_speed_rpm", "rated_power_kw", "available_power_kw",
            "load_power_kw", "full_load_current_a", "operating_current_a", "flux_ratio",
-           "combined_derating",
-           "code_current_a", "finding_codes")
+           "combined_derating", "code_current_a", "finding_codes")
+SEPARATOR = ""
 
 
 def _safe(value):
@@ -21,10 +21,15 @@ def _safe(value):
     return "" if value is None else value
 
 
-def render(assessments, **_) -> str:
+def head(**_) -> str:
+    buffer = io.StringIO()
+    csv.writer(buffer, lineterminator="\n").writerow(COLUMNS)
+    return buffer.getvalue()
+
+
+def chunk(assessments, **_) -> str:
     buffer = io.StringIO()
     writer = csv.writer(buffer, lineterminator="\n")
-    writer.writerow(COLUMNS)
     for a in assessments:
         d = result_dict(a)
         codes = ";".join(f"{f['severity']}:{f['code']}" for f in d["findings"])
@@ -32,6 +37,18 @@ def render(assessments, **_) -> str:
             d["machine"], d["site"], d["verdict"], d["rating"]["frequency_hz"],
             d["rating"]["voltage_v"], d["rating"]["connection"], d["synchronous_speed_rpm"],
             d["expected_speed_rpm"], d["rated_power_kw"], d["available_power_kw"],
-            d["load_power_kw"], d["full_load_current_a"], d["operating_current_a"], d["flux_ratio"],
-            d["combined_derating"], d["code_current_a"], codes)])
+            d["load_power_kw"], d["full_load_current_a"], d["operating_current_a"],
+            d["flux_ratio"], d["combined_derating"], d["code_current_a"], codes)])
     return buffer.getvalue()
+
+
+def join(chunks) -> str:
+    return "".join(chunks)
+
+
+def tail(**_) -> str:
+    return ""
+
+
+def render(assessments, **_) -> str:
+    return head() + chunk(assessments) + tail()

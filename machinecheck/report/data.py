@@ -2,7 +2,6 @@
 
 from __future__ import annotations
 
-from .. import __version__
 from ..check import SEVERITIES, VERDICTS
 
 
@@ -91,8 +90,3 @@ def driving_findings(a):
     """The findings that drove the verdict (warnings and problems), worst first."""
     chosen = [f for f in a.findings if f.severity != "info"]
     return sorted(chosen, key=lambda f: -SEVERITIES.index(f.severity))
-
-
-def document(assessments, *, explain: bool = False) -> dict:
-    return {"machinecheck": __version__,
-            "results": [result_dict(a, explain=explain) for a in assessments]}
