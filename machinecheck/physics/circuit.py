@@ -249,6 +249,13 @@ def _thevenin(c: Circuit, v_ph: float, f_ratio: float):
     return v_th, z_th.real, z_th.imag
 
 
+def _torque_terms(c: Circuit, voltage_v: float, frequency_hz: float):
+    """(V_th, R_th, X_th + X2, w_sync) of the circuit on a supply."""
+    f_ratio = frequency_hz / c.frequency_hz
+    v_th, r_th, x_th = _thevenin(c, voltage_v / math.sqrt(3.0), f_ratio)
+    return v_th, r_th, x_th + c.x2_ohm * f_ratio, 4.0 * math.pi * frequency_hz / c.poles
+
+
 def breakdown(c: Circuit, voltage_v: float, frequency_hz: float) -> tuple[float, float]:
     """Breakdown (pull-out) torque and the slip at which it occurs.
 
@@ -270,11 +277,8 @@ def breakdown(c: Circuit, voltage_v: float, frequency_hz: float) -> tuple[float,
     .. [1] S. J. Chapman, *Electric Machinery Fundamentals*, 4th ed., sec. 7.6 (maximum torque
        from the Thevenin equivalent).
     """
-    f_ratio = frequency_hz / c.frequency_hz
-    v_th, r_th, x_th = _thevenin(c, voltage_v / math.sqrt(3.0), f_ratio)
-    x_total = x_th + c.x2_ohm * f_ratio
+    v_th, r_th, x_total, w_sync = _torque_terms(c, voltage_v, frequency_hz)
     root = math.sqrt(r_th * r_th + x_total * x_total)
-    w_sync = 4.0 * math.pi * frequency_hz / c.poles
     return 3.0 * v_th * v_th / (2.0 * w_sync * (r_th + root)), c.r2_ohm / root
 
 
@@ -363,12 +367,9 @@ def solve(c: Circuit, voltage_v: float, frequency_hz: float, load_torque) -> Ope
     .. [1] S. J. Chapman, *Electric Machinery Fundamentals*, 4th ed., sec. 7.5 (induced torque
        from the Thevenin equivalent).
     """
-    f_ratio = frequency_hz / c.frequency_hz
-    v_th, r_th, x_th = _thevenin(c, voltage_v / math.sqrt(3.0), f_ratio)
-    x_total = x_th + c.x2_ohm * f_ratio
+    v_th, r_th, x_total, w_sync = _torque_terms(c, voltage_v, frequency_hz)
     x2sq = x_total * x_total
     n_s = 120.0 * frequency_hz / c.poles
-    w_sync = n_s * math.pi / 30.0
     k = 3.0 * v_th * v_th / w_sync
     r2 = c.r2_ohm
     p_rot, n_rot = c.rotational_loss_w, c.rated_speed_rpm

@@ -90,3 +90,23 @@ def driving_findings(a):
     """The findings that drove the verdict (warnings and problems), worst first."""
     chosen = [f for f in a.findings if f.severity != "info"]
     return sorted(chosen, key=lambda f: -SEVERITIES.index(f.severity))
+
+
+def by_site(assessments) -> dict:
+    """{site id: [assessments]} in first-seen site order."""
+    groups: dict[str, list] = {}
+    for a in assessments:
+        groups.setdefault(a.site.id, []).append(a)
+    return groups
+
+
+def number(value, fmt: str) -> str:
+    """A figure formatted for a report cell, "-" when unknown."""
+    return "-" if value is None else format(value, fmt)
+
+
+def output_text(a) -> str:
+    """Available over rated output, kW ("-" when the machine cannot run here)."""
+    if a.available_power_w is None:
+        return "-"
+    return f"{a.available_power_w / 1000:.1f} / {a.rated_power_w / 1000:.1f}"

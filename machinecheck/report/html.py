@@ -11,7 +11,7 @@ from html import escape
 from .. import __version__
 from ..physics import tolerance
 from . import CAUTION
-from .data import summary_counts, worst_first
+from .data import by_site, number, output_text, summary_counts, worst_first
 from .matrix import verdict_matrix
 
 _CSS = """
@@ -40,9 +40,6 @@ _POINT_COLOUR = {"compatible": "#2a7d2a", "conditional": "#b07800", "incompatibl
 def _e(text) -> str:
     return escape("".join(ch if ch.isprintable() or ch == "\n" else " " for ch in str(text)))
 
-
-def _num(value, fmt):
-    return "-" if value is None else format(value, fmt)
 
 
 def _xy(df, dv):
@@ -186,10 +183,7 @@ def render(assessments, *, explain=False, **_) -> str:
         out.append(f'<tr><th>{_e(m)}</th>{row}</tr>')
     out.append('</tbody></table>')
 
-    by_site: dict[str, list] = {}
-    for a in assessments:
-        by_site.setdefault(a.site.id, []).append(a)
-    for site_id, group in by_site.items():
+    for site_id, group in by_site(assessments).items():
         s = group[0].site
         title = f"{site_id}" + (f": {s.name}" if s.name else "")
         out.append(f'<section><h2>{_e(title)}</h2>')
@@ -204,14 +198,13 @@ def render(assessments, *, explain=False, **_) -> str:
                    '<th>flux k</th></tr></thead><tbody>')
         ordered = worst_first(group)
         for a in ordered:
-            power = "-" if a.available_power_w is None else (
-                f"{a.available_power_w / 1000:.1f} / {a.rated_power_w / 1000:.1f}")
+            power = output_text(a)
             out.append(f'<tr class="{a.verdict}"><td>{_e(a.machine.id)}</td><td>{a.verdict}</td>'
                        f'<td class="n">{a.synchronous_speed_rpm:.0f}</td>'
-                       f'<td class="n">{_num(a.expected_speed_rpm, ".0f")}</td>'
+                       f'<td class="n">{number(a.expected_speed_rpm, ".0f")}</td>'
                        f'<td class="n">{power}</td>'
-                       f'<td class="n">{_num(a.full_load_current_a, ".1f")}</td>'
-                       f'<td class="n">{_num(a.operating_current_a, ".1f")}</td>'
+                       f'<td class="n">{number(a.full_load_current_a, ".1f")}</td>'
+                       f'<td class="n">{number(a.operating_current_a, ".1f")}</td>'
                        f'<td class="n">{a.flux_ratio:.3f}</td></tr>')
         out.append('</tbody></table>')
         for a in ordered:

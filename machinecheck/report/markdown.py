@@ -3,7 +3,7 @@
 from __future__ import annotations
 
 from . import CAUTION
-from .data import driving_findings, summary_counts, worst_first
+from .data import by_site, driving_findings, number, output_text, summary_counts, worst_first
 from .matrix import verdict_matrix
 
 
@@ -12,9 +12,6 @@ def cell(text) -> str:
     cleaned = "".join(ch if ch.isprintable() else " " for ch in str(text))
     return cleaned.replace("\\", "\\\\").replace("|", "\\|")
 
-
-def _num(value, fmt):
-    return "-" if value is None else format(value, fmt)
 
 
 def render(assessments, *, explain=False, matrix=False, **_) -> str:
@@ -31,10 +28,7 @@ def render(assessments, *, explain=False, matrix=False, **_) -> str:
         out += ["| " + cell(m) + " | " + " | ".join(cells.get((m, s), "") for s in sites) + " |"
                 for m in machines]
         out.append("")
-    by_site: dict[str, list] = {}
-    for a in assessments:
-        by_site.setdefault(a.site.id, []).append(a)
-    for site_id, group in by_site.items():
+    for site_id, group in by_site(assessments).items():
         s = group[0].site
         out += [f"## {cell(site_id)}: {cell(s.name)} ({s.voltage_v:g} V {s.frequency_hz:g} Hz, "
                 f"{s.phases} ph, {s.standard})", "",
@@ -42,11 +36,10 @@ def render(assessments, *, explain=False, matrix=False, **_) -> str:
                 "|---|---|---:|---:|---:|---:|---:|"]
         ordered = worst_first(group)
         for a in ordered:
-            power = "-" if a.available_power_w is None else (
-                f"{a.available_power_w / 1000:.1f} / {a.rated_power_w / 1000:.1f}")
+            power = output_text(a)
             out.append(f"| {cell(a.machine.id)} | {a.verdict} | {a.synchronous_speed_rpm:.0f} | "
-                       f"{_num(a.expected_speed_rpm, '.0f')} | {power} | "
-                       f"{_num(a.full_load_current_a, '.1f')} | {a.flux_ratio:.3f} |")
+                       f"{number(a.expected_speed_rpm, '.0f')} | {power} | "
+                       f"{number(a.full_load_current_a, '.1f')} | {a.flux_ratio:.3f} |")
         out.append("")
         for a in ordered:
             found = driving_findings(a)

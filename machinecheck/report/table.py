@@ -6,16 +6,13 @@ import io
 import os
 
 from . import CAUTION
-from .data import driving_findings, summary_counts, worst_first
+from .data import by_site, driving_findings, number, output_text, summary_counts, worst_first
 from .matrix import verdict_matrix
 
 _STYLE = {"compatible": "green", "conditional": "yellow", "incompatible": "bold red"}
 _MARK = {"compatible": "compatible", "conditional": "conditional",
          "incompatible": "incompatible"}
 
-
-def _num(value, fmt, empty="-"):
-    return empty if value is None else format(value, fmt)
 
 
 def _safe(text: str, limit: int = 400) -> str:
@@ -34,13 +31,8 @@ def render(assessments, *, explain=False, matrix=False, width=None, color=None, 
     console = Console(file=buffer, width=width or 120, markup=False, highlight=False,
                       no_color=no_color, force_terminal=not no_color and color is True,
                       emoji=False)
-    by_site: dict[str, list] = {}
-    site_of = {}
-    for a in assessments:
-        by_site.setdefault(a.site.id, []).append(a)
-        site_of[a.site.id] = a.site
-    for site_id, group in by_site.items():
-        s = site_of[site_id]
+    for group in by_site(assessments).values():
+        s = group[0].site
         title = (f"{_safe(s.id)} - {_safe(s.name)}: " if s.name else f"{_safe(s.id)}: ")
         title += (f"{s.voltage_v:g} V {s.frequency_hz:g} Hz, {s.phases} phase"
                   f"{'s' if s.phases > 1 else ''}, {s.standard}")
@@ -57,18 +49,17 @@ def render(assessments, *, explain=False, matrix=False, width=None, color=None, 
             lines = [f"{'✗' if f.severity == 'problem' else '!'} {f.message}" for f in found]
             if not lines:
                 lines = [f.message for f in a.findings if f.code == "connection"] or ["fits as rated"]
-            speed = _num(a.expected_speed_rpm, ".0f")
+            speed = number(a.expected_speed_rpm, ".0f")
             if a.speed_band_rpm is not None and a.expected_speed_rpm is not None:
                 speed += f" ±{a.speed_band_rpm:.0f}"
-            output = "-" if a.available_power_w is None else (
-                f"{a.available_power_w / 1000:.1f} / {a.rated_power_w / 1000:.1f}")
+            output = output_text(a)
             if a.machine.is_generator and a.available_apparent_power_va is not None:
                 output = (f"{a.available_apparent_power_va / 1000:.0f} / "
                           f"{a.rated_apparent_power_va / 1000:.0f} kVA")
             table.add_row(Text(_safe(a.machine.id)),
                           Text(_MARK[a.verdict], style=_STYLE[a.verdict]),
                           f"{a.synchronous_speed_rpm:.0f}", speed, output,
-                          _num(a.full_load_current_a, ".1f"),
+                          number(a.full_load_current_a, ".1f"),
                           Text(_safe("\n".join(lines), 4000)))
         console.print(table)
         if explain:
