@@ -186,13 +186,23 @@ def assess(machine: Machine, site: Site, *, explain: bool = False) -> Assessment
     _service_factor(a)
     _star_delta(a)
 
-    from .rules import RULES
-
-    for rule in RULES:
+    for rule in _rules():
         rule(a)
     worst = max((SEVERITIES.index(f.severity) for f in a.findings), default=0)
     a.verdict = _VERDICT_OF[SEVERITIES[worst]]
     return a
+
+
+def _rules():
+    global _RULES
+    if _RULES is None:
+        from .rules import RULES  # rules import this module's names: bound on first use
+
+        _RULES = RULES
+    return _RULES
+
+
+_RULES = None
 
 
 def assess_all(machines, sites, *, explain: bool = False, progress=None) -> list[Assessment]:
@@ -563,10 +573,24 @@ def _service_factor(a: Assessment) -> None:
     a.service_factor_at_site = sf if clean else 1.0
 
 
-def _star_delta(a: Assessment) -> None:
-    names = {(c.name or "").strip().lower(): c for c in a.rating.connections}
+_STAR_DELTA: dict[int, tuple] = {}  # id(rating) -> (rating, delta, star): names read once
+
+
+def _star_delta_pair(rating: Rating):
+    cached = _STAR_DELTA.get(id(rating))
+    if cached is not None and cached[0] is rating:
+        return cached[1], cached[2]
+    names = {(c.name or "").strip().lower(): c for c in rating.connections}
     delta = next((c for n, c in names.items() if n in DELTA_NAMES), None)
     star = next((c for n, c in names.items() if n in STAR_NAMES), None)
+    if len(_STAR_DELTA) > 100_000:
+        _STAR_DELTA.clear()
+    _STAR_DELTA[id(rating)] = (rating, delta, star)
+    return delta, star
+
+
+def _star_delta(a: Assessment) -> None:
+    delta, star = _star_delta_pair(a.rating)
     if delta is None or star is None or a.machine.phases != 3:
         a.star_delta_possible = None
         return

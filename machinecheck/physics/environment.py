@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import bisect
+from functools import lru_cache
 
 from ..errors import DomainError
 
@@ -32,6 +33,7 @@ def _bracket(axis, value):
     return i, min(max(t, 0.0), 1.0)
 
 
+@lru_cache(maxsize=1024)  # a fleet has few distinct site conditions
 def site_derating(altitude_m: float, ambient_degc: float) -> float:
     """Output factor for a machine rated at 1000 m and 40 degC at another site [-].
 
