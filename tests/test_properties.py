@@ -4,6 +4,7 @@ physics keeps its monotonic relations."""
 import json
 import math
 
+import pytest
 from helpers import machine, site
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
@@ -145,3 +146,40 @@ def test_verdict_never_improves_when_conditions_worsen(u1, u2, alt1, alt2):
                            unbalance=f"{high_u} %", altitude=f"{high_alt} m"))
     assert VERDICTS.index(worse.verdict) >= VERDICTS.index(better.verdict)
     assert worse.available_power_w <= better.available_power_w + 1e-6
+
+
+@st.composite
+def plates(draw):
+    """Plausible three-phase plates: slip 0.5-8 %, efficiency below 1 - slip, PF 0.6-0.95."""
+    f = draw(st.sampled_from([50.0, 60.0]))
+    poles = draw(st.sampled_from([2, 4, 6, 8]))
+    slip = draw(st.floats(0.005, 0.08))
+    eta = draw(st.floats(0.6, min(0.97, 1.0 - slip - 0.01)))
+    return dict(power_w=draw(st.floats(500.0, 2.0e6)), voltage_v=draw(st.sampled_from(
+                [230.0, 400.0, 460.0, 690.0, 4160.0])), frequency_hz=f, poles=poles,
+                speed_rpm=120.0 * f / poles * (1.0 - slip), efficiency=eta,
+                power_factor=draw(st.floats(0.6, 0.95)),
+                design=draw(st.sampled_from([None, "A", "B", "C", "D", "N", "H"])))
+
+
+@SETTINGS
+@given(plates(), st.floats(0.0, 1.0))
+def test_circuit_returns_its_plate_and_behaves_at_part_load(plate, load):
+    # The estimate reproduces the rated point; at lower load the speed is higher and the
+    # current lower (Chapman ch. 7 torque-speed behaviour); nothing is NaN.
+    from machinecheck.physics import circuit
+
+    try:
+        est = circuit.estimate(**plate)
+    except MachinecheckError:
+        return  # a plate no circuit fits is refused, never mis-fitted
+    torque = plate["power_w"] / (plate["speed_rpm"] * math.pi / 30.0)
+    rated = circuit.solve(est, plate["voltage_v"], plate["frequency_hz"], lambda n: torque)
+    assert rated.speed_rpm == pytest.approx(plate["speed_rpm"], rel=1e-5)
+    assert rated.efficiency == pytest.approx(plate["efficiency"], rel=1e-4)
+    assert rated.power_factor == pytest.approx(plate["power_factor"], rel=1e-4)
+    part = circuit.solve(est, plate["voltage_v"], plate["frequency_hz"],
+                         lambda n: load * torque)
+    assert part.speed_rpm >= rated.speed_rpm - 1e-6
+    assert part.current_a <= rated.current_a * (1 + 1e-9)
+    assert all(math.isfinite(x) for x in (part.current_a, part.power_factor, part.speed_rpm))
