@@ -205,6 +205,8 @@ def test_csv_report_parses_back():
 
     result = run("check", "--format", "csv")
     rows = list(csv.DictReader(io.StringIO(result.output)))
+    caution = rows.pop()
+    assert caution["machine"].startswith("Caution:") and not caution["verdict"]
     assert len(rows) == 12 * 4
     assert {r["verdict"] for r in rows} == {"compatible", "conditional", "incompatible"}
     assert all(r["machine"] and r["site"] for r in rows)

@@ -1,10 +1,11 @@
-"""CSV renderer: one row per (machine, site) pair with a header, ready for a spreadsheet."""
+"""CSV renderer: a header, one row per (machine, site) pair, the caution as the last row."""
 
 from __future__ import annotations
 
 import csv
 import io
 
+from . import CAUTION
 from .data import result_dict
 
 COLUMNS = ("machine", "site", "verdict", "rating_frequency_hz", "rating_voltage_v", "connection",
@@ -47,7 +48,10 @@ def join(chunks) -> str:
 
 
 def tail(**_) -> str:
-    return ""
+    """The caution as a last row, first cell, where a spreadsheet shows it."""
+    buffer = io.StringIO()
+    csv.writer(buffer, lineterminator="\n").writerow([CAUTION] + [""] * (len(COLUMNS) - 1))
+    return buffer.getvalue()
 
 
 def render(assessments, **_) -> str:
