@@ -128,12 +128,37 @@ def _demo_path(name: str) -> str:
     return str(files("machinecheck") / "catalogs" / name)
 
 
-def _load_inputs(catalogs, sites_file, values):
-    from .catalog import load_catalog, load_sites
+def _machine_given(values) -> bool:
+    return any(values.get(o) not in (None, ()) for o in
+               (*MACHINE_OPTIONS, *RATING_OPTIONS, *LOAD_OPTIONS))
 
-    machine_given = any(values.get(o) not in (None, ()) for o in
-                        (*MACHINE_OPTIONS, *RATING_OPTIONS, *LOAD_OPTIONS))
-    site_given = any(values.get(o) is not None for o in SITE_OPTIONS)
+
+def _load_sites(sites_file, values, errors) -> list:
+    """The sites of --sites (the demo's by default) or of the supply options; problems are
+    added to ``errors``."""
+    from .catalog import load_sites
+
+    if any(values.get(o) is not None for o in SITE_OPTIONS):
+        if sites_file:
+            raise InputError("give supply options or --sites, not both")
+        try:
+            return list(_oneoff_site(values))
+        except InputErrors as exc:
+            errors += exc.errors
+            return []
+    try:
+        return list(load_sites(sites_file or _demo_path("sites.toml")))
+    except InputErrors as exc:
+        errors += exc.errors
+    except InputError as exc:
+        errors.append(exc)
+    return []
+
+
+def _load_inputs(catalogs, sites_file, values):
+    from .catalog import load_catalog
+
+    machine_given = _machine_given(values)
     errors = []
     machines = []
     if machine_given:
@@ -151,24 +176,7 @@ def _load_inputs(catalogs, sites_file, values):
                 errors += exc.errors
             except InputError as exc:
                 errors.append(exc)
-    if site_given:
-        if sites_file:
-            raise InputError("give supply options or --sites, not both")
-        try:
-            sites = list(_oneoff_site(values))
-        except InputErrors as exc:
-            errors += exc.errors
-            sites = []
-    else:
-        path = sites_file or _demo_path("sites.toml")
-        try:
-            sites = list(load_sites(path))
-        except InputErrors as exc:
-            errors += exc.errors
-            sites = []
-        except InputError as exc:
-            errors.append(exc)
-            sites = []
+    sites = _load_sites(sites_file, values, errors)
     if errors:
         raise InputErrors(errors)
     seen = {}
@@ -298,6 +306,12 @@ def check(catalogs, sites_file, site_ids, machine_ids, fmt, output, problems_onl
     # A fleet check allocates many short-lived objects and few cycles: collect less often, and
     # keep the loaded catalog out of the collector's scans (and its pages unshared by workers).
     gc.set_threshold(50_000, 20, 20)
+    if (output and fmt in STREAMED_FORMATS and catalogs and not machine_ids
+            and not _machine_given(values)):
+        done = _from_texts(catalogs, sites_file, site_ids, values, fmt, output, explain,
+                           problems_only, strict)
+        if done is not None:
+            sys.exit(done)
     machines, sites = _load_inputs(catalogs, sites_file, values)
     gc.freeze()
     machines = _select(machines, machine_ids, "machine")
@@ -329,6 +343,52 @@ def check(catalogs, sites_file, site_ids, machine_ids, fmt, output, problems_onl
 
 
 STREAMED_FORMATS = ("json", "csv")
+
+
+def _from_texts(catalogs, sites_file, site_ids, values, fmt, output, explain, problems_only,
+                strict):
+    """A large TOML fleet to a file: workers parse, validate and check pieces of the text.
+
+    Returns the exit status, or None when this path does not apply or a piece needs the whole
+    catalog (an error, a duplicate id ...): the caller then loads everything as usual.
+    """
+    from . import runner
+    from .catalog import read_text
+
+    workers = runner.workers_available()
+    if workers < 2 or any(c.lower().endswith(".csv") for c in catalogs):
+        return None
+    errors: list = []
+    try:
+        sites = _load_sites(sites_file, values, errors)
+        plans = [runner.plan_file(c, read_text(c)) for c in catalogs]
+    except MachinecheckError:
+        return None  # the usual load reports it
+    if errors or any(p is None for p in plans):
+        return None
+    sites = _select(sites, site_ids, "site")
+    if sum(p.machines for p in plans) * len(sites) < runner.PARALLEL_PAIRS:
+        return None
+    tally = runner.Tally()
+    bar = None
+    if sys.stderr.isatty():
+        bar = click.progressbar(length=sum(p.machines for p in plans), label="checking",
+                                file=sys.stderr)
+        bar.__enter__()
+    try:
+        write_output(runner.stream_files(plans, sites, fmt, explain=explain,
+                                         problems_only=problems_only, tally=tally,
+                                         progress=None if bar is None else bar.update,
+                                         workers=workers),
+                     output, [*catalogs, sites_file, *(s.source for s in sites)])
+    except runner.Redo:
+        return None
+    finally:
+        if bar is not None:
+            bar.__exit__(None, None, None)
+    click.echo(f"wrote {tally.shown} results to {output}", err=True)
+    failing = tally.counts["incompatible"] + (tally.counts["conditional"] if strict else 0)
+    return EXIT_PROBLEM if failing else EXIT_OK
 
 
 def _streamed(machines, sites, fmt, explain, problems_only, bar):

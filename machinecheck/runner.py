@@ -3,6 +3,13 @@
 Results are rendered and dropped as they are made, so memory stays flat however large the
 fleet; on a machine with more than one core, large fleets are split over worker processes
 (forked, so they share the validated catalog), and the chunks come back in input order.
+
+When the report goes to a file, a large TOML catalog can go to the workers unparsed: its text is
+cut before ``[[machine]]`` headers and each worker parses, validates and checks its own piece.
+Anything a piece cannot settle alone (a syntax or validation error, a duplicate id, a table
+that is not a machine) raises :class:`Redo`, and the caller loads the catalog whole, which
+reports it exactly as usual; the output file is written atomically, so nothing is left of the
+first attempt.
 """
 
 from __future__ import annotations
@@ -10,6 +17,7 @@ from __future__ import annotations
 import importlib
 import multiprocessing
 import os
+import re
 import sys
 from dataclasses import dataclass, field
 
@@ -19,6 +27,24 @@ CHUNK_MACHINES = 400
 PARALLEL_PAIRS = 6000
 
 _JOB: tuple | None = None  # (machines, sites, fmt, explain, problems_only), read by workers
+_TEXT_JOB: tuple | None = None  # (plans, sites, fmt, explain, problems_only), read by workers
+
+#: A line that starts a machine table: the only places a catalog's text is cut.
+_MACHINE_HEADER = re.compile(r"^\[\[[ \t]*machine[ \t]*\]\][ \t]*(#.*)?$", re.M)
+
+
+class Redo(Exception):
+    """A piece of a catalog needs the whole file to be judged: load it whole instead."""
+
+
+@dataclass
+class FilePlan:
+    """A catalog's text and where it is cut: (start, stop, machines) per piece."""
+
+    name: str
+    text: str
+    pieces: list
+    machines: int
 
 
 @dataclass
@@ -42,11 +68,39 @@ def renderer(fmt: str):
 
 def _work(bounds):
     """Check machines[start:stop] against every site; return (text, counts, shown)."""
-    from .check import assess_all
-
     machines, sites, fmt, explain, problems_only = _JOB
     start, stop = bounds
-    results = assess_all(machines[start:stop], sites, explain=explain)
+    return _checked(machines[start:stop], sites, fmt, explain, problems_only)
+
+
+def _work_text(job):
+    """Parse, validate and check one piece of a catalog's text; None when it needs the whole."""
+    from .catalog import catalog_from_data, tomllib
+    from .errors import MachinecheckError
+
+    plans, sites, fmt, explain, problems_only = _TEXT_JOB
+    index, start, stop = job
+    plan = plans[index]
+    piece = plan.text[start:stop]
+    try:
+        data = tomllib.loads(piece)
+    except tomllib.TOMLDecodeError:
+        return None
+    allowed = ("catalog", "machine") if start == 0 else ("machine",)
+    if not isinstance(data.get("machine"), list) or any(key not in allowed for key in data):
+        return None
+    try:
+        machines = catalog_from_data(data, plan.name, piece).machines
+    except MachinecheckError:
+        return None
+    return (*_checked(machines, sites, fmt, explain, problems_only),
+            [m.id for m in machines])
+
+
+def _checked(machines, sites, fmt, explain, problems_only):
+    from .check import assess_all
+
+    results = assess_all(machines, sites, explain=explain)
     counts = {"compatible": 0, "conditional": 0, "incompatible": 0}
     for a in results:
         counts[a.verdict] += 1
@@ -63,42 +117,96 @@ def workers_available() -> int:
     return cores if fork else 1
 
 
+def _pool(workers: int, jobs: int):
+    return multiprocessing.get_context("fork").Pool(min(workers, jobs))
+
+
+def _emit(module, results, sizes, tally: Tally, progress, on_result=None):
+    """Yield the document from ordered chunk results; ``tally`` is filled as they come."""
+    yield module.head()
+    first = True
+    for size, result in zip(sizes, results):
+        if on_result is not None:
+            on_result(result)
+        text, counts, shown = result[:3]
+        tally.add(counts, shown)
+        if progress is not None:
+            progress(size)
+        if not text:
+            continue
+        if module.SEPARATOR:
+            yield "\n" if first else module.SEPARATOR
+        first = False
+        yield text
+    if module.SEPARATOR and not first:
+        yield "\n"
+    yield module.tail()
+
+
 def stream(machines, sites, fmt, *, explain=False, problems_only=False, tally: Tally,
            progress=None, workers: int | None = None):
     """Yield the report text in pieces; ``tally`` is filled as the pieces are made."""
     global _JOB
-    module = renderer(fmt)
     bounds = [(i, min(i + CHUNK_MACHINES, len(machines)))
               for i in range(0, len(machines), CHUNK_MACHINES)]
     workers = workers_available() if workers is None else workers
     parallel = workers > 1 and len(machines) * len(sites) >= PARALLEL_PAIRS and len(bounds) > 1
     _JOB = (machines, sites, fmt, explain, problems_only)
-    yield module.head()
     pool = None
     try:
         if parallel:
-            pool = multiprocessing.get_context("fork").Pool(min(workers, len(bounds)))
-            pieces = pool.imap(_work, bounds)
+            pool = _pool(workers, len(bounds))
+            results = pool.imap(_work, bounds)
         else:
-            pieces = map(_work, bounds)
-        first = True
-        for (start, stop), (text, counts, shown) in zip(bounds, pieces):
-            tally.add(counts, shown)
-            if progress is not None:
-                progress(stop - start)
-            if not text:
-                continue
-            if module.SEPARATOR and first:
-                yield "\n"
-            elif module.SEPARATOR:
-                yield module.SEPARATOR
-            first = False
-            yield text
-        if module.SEPARATOR and not first:
-            yield "\n"
-        yield module.tail()
+            results = map(_work, bounds)
+        yield from _emit(renderer(fmt), results, [b - a for a, b in bounds], tally, progress)
     finally:
         if pool is not None:
             pool.terminate()
             pool.join()
         _JOB = None
+
+
+def plan_file(name: str, text: str) -> FilePlan | None:
+    """Where to cut a TOML catalog into pieces of about CHUNK_MACHINES machines; None if unsafe.
+
+    Cutting is safe when no multi-line string could hold a line that looks like a header.
+    """
+    if '"""' in text or "'''" in text:
+        return None
+    starts = [m.start() for m in _MACHINE_HEADER.finditer(text)]
+    if len(starts) < 2:
+        return None
+    cuts = [0] + starts[CHUNK_MACHINES::CHUNK_MACHINES] + [len(text)]
+    counts = [CHUNK_MACHINES] * (len(cuts) - 2) + [len(starts) - CHUNK_MACHINES * (len(cuts) - 2)]
+    return FilePlan(name=name, text=text, machines=len(starts),
+                    pieces=[(cuts[i], cuts[i + 1], counts[i]) for i in range(len(cuts) - 1)])
+
+
+def stream_files(plans, sites, fmt, *, explain=False, problems_only=False, tally: Tally,
+                 progress=None, workers: int):
+    """As :func:`stream`, from catalog texts cut by :func:`plan_file`; raises Redo."""
+    global _TEXT_JOB
+    jobs = [(i, start, stop) for i, plan in enumerate(plans) for start, stop, _ in plan.pieces]
+    sizes = [count for plan in plans for _, _, count in plan.pieces]
+    seen: set = set()
+
+    def check_piece(result):
+        if result is None:
+            raise Redo
+        ids = result[3]
+        seen.update(ids)
+        if len(seen) != check_piece.total + len(ids):
+            raise Redo  # a duplicate id: the whole load names both places
+        check_piece.total += len(ids)
+
+    check_piece.total = 0
+    _TEXT_JOB = (plans, sites, fmt, explain, problems_only)
+    pool = _pool(workers, len(jobs))
+    try:
+        yield from _emit(renderer(fmt), pool.imap(_work_text, jobs), sizes, tally, progress,
+                         on_result=check_piece)
+    finally:
+        pool.terminate()
+        pool.join()
+        _TEXT_JOB = None
