@@ -118,6 +118,10 @@ def workers_available() -> int:
 
 
 def _pool(workers: int, jobs: int):
+    # import what the workers run before forking, so each does not import it again
+    from . import catalog, check, rules  # noqa: F401
+
+    check._rules()
     return multiprocessing.get_context("fork").Pool(min(workers, jobs))
 
 
