@@ -390,12 +390,24 @@ def solve(c: Circuit, voltage_v: float, frequency_hz: float, load_torque) -> Ope
     f_lo = excess(lo)
     if f_lo >= 0.0:
         return operating_point(c, voltage_v, frequency_hz, lo)
+    # narrow the bracket around the small-slip estimate s ~ T R2 / k (T_ind ~ k s / R2)
+    guess = -f_lo * r2 / k
+    tolerance = -1e-8 * f_lo  # of the torque asked for: speed exact to ~1e-8 of the slip
+    for trial in (guess, 1.5 * guess):
+        if not lo < trial < hi:
+            break
+        f_trial = excess(trial)
+        if f_trial < 0.0:
+            lo, f_lo = trial, f_trial
+        else:
+            hi, f_hi = trial, f_trial
+            break
     side = 0
     s = lo
     for _ in range(100):
         s = (lo * f_hi - hi * f_lo) / (f_hi - f_lo)
         f_s = excess(s)
-        if abs(f_s) < 1e-9 * k or hi - lo < 1e-12:
+        if abs(f_s) < tolerance or hi - lo < 1e-12:
             break
         if f_s < 0.0:
             lo, f_lo = s, f_s
