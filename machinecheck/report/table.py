@@ -43,6 +43,7 @@ def render(assessments, *, explain=False, matrix=False, width=None, color=None, 
         table.add_column("speed rpm", justify="right")
         table.add_column("output kW", justify="right")
         table.add_column("FLC A", justify="right")
+        table.add_column("load A", justify="right")
         table.add_column("findings", overflow="fold", ratio=1)
         for a in worst_first(group):
             found = driving_findings(a)
@@ -60,6 +61,7 @@ def render(assessments, *, explain=False, matrix=False, width=None, color=None, 
                           Text(_MARK[a.verdict], style=_STYLE[a.verdict]),
                           f"{a.synchronous_speed_rpm:.0f}", speed, output,
                           number(a.full_load_current_a, ".1f"),
+                          number(a.operating_current_a, ".1f"),
                           Text(_safe("\n".join(lines), 4000)))
         console.print(table)
         if explain:
@@ -86,6 +88,7 @@ def render(assessments, *, explain=False, matrix=False, width=None, color=None, 
     console.print(Text(
         f"{len(assessments)} pairs: {total['compatible']} compatible, {total['conditional']} "
         f"conditional, {total['incompatible']} incompatible. Output is available / rated; speed "
-        "at full available load (or the driven load) with the slip tolerance."))
+        "and load current at full available load (or at the driven load), the speed with the "
+        "slip tolerance; FLC is the full-load current at the site."))
     console.print(Text(CAUTION, style="dim"))
     return buffer.getvalue()
