@@ -110,3 +110,16 @@ def output_text(a) -> str:
     if a.available_power_w is None:
         return "-"
     return f"{a.available_power_w / 1000:.1f} / {a.rated_power_w / 1000:.1f}"
+
+
+#: Columns of the per-site table of the markdown and HTML reports; :func:`site_row` fills them.
+SITE_COLUMNS = ("machine", "verdict", "n_s rpm", "speed rpm", "output kW", "FLC A", "load A",
+                "flux k")
+
+
+def site_row(a) -> list[str]:
+    """The cells of one pair in the per-site table (texts, not yet escaped)."""
+    return [a.machine.id, a.verdict, f"{a.synchronous_speed_rpm:.0f}",
+            number(a.expected_speed_rpm, ".0f"), output_text(a),
+            number(a.full_load_current_a, ".1f"), number(a.operating_current_a, ".1f"),
+            f"{a.flux_ratio:.3f}"]

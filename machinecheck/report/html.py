@@ -11,7 +11,7 @@ from html import escape
 from .. import __version__
 from ..physics import tolerance
 from . import CAUTION
-from .data import by_site, number, output_text, summary_counts, worst_first
+from .data import SITE_COLUMNS, by_site, site_row, summary_counts, worst_first
 from .matrix import verdict_matrix
 
 _CSS = """
@@ -140,24 +140,19 @@ def _figures(a) -> list[tuple[str, str]]:
             ("supply to winding", f"{a.supply_voltage_v:.0f} V {a.supply_voltage_note}".strip()),
             ("flux ratio k", f"{a.flux_ratio:.3f}"),
             ("synchronous speed", f"{a.synchronous_speed_rpm:.0f} rpm")]
-    if a.expected_speed_rpm is not None:
-        rows.append(("expected speed", f"{a.expected_speed_rpm:.0f} rpm"
-                     + (f" ({a.operating_point_basis})" if a.operating_point_basis else "")))
-    if a.available_power_w is not None:
-        rows.append(("available output", f"{a.available_power_w / 1000:.2f} of "
-                     f"{a.rated_power_w / 1000:.2f} kW (x {a.combined_factor:.3f})"))
-    if a.available_apparent_power_va is not None:
-        rows.append(("available apparent power", f"{a.available_apparent_power_va / 1000:.1f} kVA"))
-    if a.load_power_w is not None:
-        rows.append(("load power", f"{a.load_power_w / 1000:.2f} kW"))
-    if a.full_load_current_a is not None:
-        rows.append(("full-load current", f"{a.full_load_current_a:.1f} A ({a.current_basis})"))
-    if a.operating_current_a is not None:
-        rows.append(("operating current", f"{a.operating_current_a:.1f} A"))
-    if a.breakdown_margin is not None:
-        rows.append(("breakdown torque / load", f"{a.breakdown_margin:.2f}"))
-    if a.code_current_a is not None:
-        rows.append(("NFPA 70 table current", f"{a.code_current_a:g} A"))
+    basis = f" ({a.operating_point_basis})" if a.operating_point_basis else ""
+    optional = (
+        ("expected speed", a.expected_speed_rpm, lambda v: f"{v:.0f} rpm{basis}"),
+        ("available output", a.available_power_w,
+         lambda v: f"{v / 1000:.2f} of {a.rated_power_w / 1000:.2f} kW (x {a.combined_factor:.3f})"),
+        ("available apparent power", a.available_apparent_power_va, lambda v: f"{v / 1000:.1f} kVA"),
+        ("load power", a.load_power_w, lambda v: f"{v / 1000:.2f} kW"),
+        ("full-load current", a.full_load_current_a, lambda v: f"{v:.1f} A ({a.current_basis})"),
+        ("load current", a.operating_current_a, lambda v: f"{v:.1f} A"),
+        ("breakdown torque / load", a.breakdown_margin, lambda v: f"{v:.2f}"),
+        ("NFPA 70 table current", a.code_current_a, lambda v: f"{v:g} A"),
+    )
+    rows += [(label, shown(value)) for label, value, shown in optional if value is not None]
     return rows
 
 
@@ -193,19 +188,13 @@ def render(assessments, *, explain=False, **_) -> str:
         out.append(zone_diagram(s, group))
         out.append('<p>Filled dots: rated-frequency points; hollow: re-rated from another '
                    'frequency, plotted at the flux deviation; crosses: off the chart.</p>')
-        out.append('<table><thead><tr><th>machine</th><th>verdict</th><th>n_s rpm</th>'
-                   '<th>speed rpm</th><th>output kW</th><th>FLC A</th><th>operating A</th>'
-                   '<th>flux k</th></tr></thead><tbody>')
+        out.append('<table><thead><tr>' + "".join(f'<th>{_e(c)}</th>' for c in SITE_COLUMNS)
+                   + '</tr></thead><tbody>')
         ordered = worst_first(group)
         for a in ordered:
-            power = output_text(a)
-            out.append(f'<tr class="{a.verdict}"><td>{_e(a.machine.id)}</td><td>{a.verdict}</td>'
-                       f'<td class="n">{a.synchronous_speed_rpm:.0f}</td>'
-                       f'<td class="n">{number(a.expected_speed_rpm, ".0f")}</td>'
-                       f'<td class="n">{power}</td>'
-                       f'<td class="n">{number(a.full_load_current_a, ".1f")}</td>'
-                       f'<td class="n">{number(a.operating_current_a, ".1f")}</td>'
-                       f'<td class="n">{a.flux_ratio:.3f}</td></tr>')
+            first, *rest = site_row(a)
+            out.append(f'<tr class="{a.verdict}"><td>{_e(first)}</td><td>{rest[0]}</td>'
+                       + "".join(f'<td class="n">{_e(x)}</td>' for x in rest[1:]) + '</tr>')
         out.append('</tbody></table>')
         for a in ordered:
             out.append(f'<h3>{_e(a.machine.id)} at {_e(site_id)}: '

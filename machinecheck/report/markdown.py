@@ -3,7 +3,7 @@
 from __future__ import annotations
 
 from . import CAUTION
-from .data import by_site, driving_findings, number, output_text, summary_counts, worst_first
+from .data import SITE_COLUMNS, by_site, driving_findings, site_row, summary_counts, worst_first
 from .matrix import verdict_matrix
 
 
@@ -32,15 +32,9 @@ def render(assessments, *, explain=False, matrix=False, **_) -> str:
         s = group[0].site
         out += [f"## {cell(site_id)}: {cell(s.name)} ({s.voltage_v:g} V {s.frequency_hz:g} Hz, "
                 f"{s.phases} ph, {s.standard})", "",
-                "| machine | verdict | n_s rpm | speed rpm | output kW | FLC A | load A | flux k |",
-                "|---|---|---:|---:|---:|---:|---:|---:|"]
+                "| " + " | ".join(SITE_COLUMNS) + " |", "|---|---|" + "---:|" * 6]
         ordered = worst_first(group)
-        for a in ordered:
-            power = output_text(a)
-            out.append(f"| {cell(a.machine.id)} | {a.verdict} | {a.synchronous_speed_rpm:.0f} | "
-                       f"{number(a.expected_speed_rpm, '.0f')} | {power} | "
-                       f"{number(a.full_load_current_a, '.1f')} | "
-                       f"{number(a.operating_current_a, '.1f')} | {a.flux_ratio:.3f} |")
+        out += ["| " + " | ".join(cell(x) for x in site_row(a)) + " |" for a in ordered]
         out.append("")
         for a in ordered:
             found = driving_findings(a)
