@@ -117,12 +117,35 @@ def workers_available() -> int:
     return cores if fork else 1
 
 
-def _pool(workers: int, jobs: int):
-    # import what the workers run before forking, so each does not import it again
-    from . import catalog, check, rules  # noqa: F401
+class _Workers:
+    """Forked worker processes mapping a function over jobs, results in job order.
 
-    check._rules()
-    return multiprocessing.get_context("fork").Pool(min(workers, jobs))
+    A worker that dies (killed, out of memory) ends the run with a clear error, not a hang.
+    """
+
+    def __init__(self, workers: int, jobs: int):
+        from concurrent.futures import ProcessPoolExecutor
+
+        # import what the workers run before forking, so each does not import it again
+        from . import catalog, check, rules  # noqa: F401
+
+        check._rules()
+        self._executor = ProcessPoolExecutor(min(workers, jobs),
+                                             mp_context=multiprocessing.get_context("fork"))
+
+    def map(self, function, jobs):
+        from concurrent.futures.process import BrokenProcessPool
+
+        from .errors import MachinecheckError
+
+        try:
+            yield from self._executor.map(function, jobs)
+        except BrokenProcessPool:
+            raise MachinecheckError("a worker process ended unexpectedly (out of memory?): "
+                                    "the report was not finished; try again, or split the catalog") from None
+
+    def close(self) -> None:
+        self._executor.shutdown(wait=True, cancel_futures=True)
 
 
 def _emit(module, results, sizes, tally: Tally, progress, on_result=None):
@@ -159,15 +182,14 @@ def stream(machines, sites, fmt, *, explain=False, problems_only=False, tally: T
     pool = None
     try:
         if parallel:
-            pool = _pool(workers, len(bounds))
-            results = pool.imap(_work, bounds)
+            pool = _Workers(workers, len(bounds))
+            results = pool.map(_work, bounds)
         else:
             results = map(_work, bounds)
         yield from _emit(renderer(fmt), results, [b - a for a, b in bounds], tally, progress)
     finally:
         if pool is not None:
-            pool.terminate()
-            pool.join()
+            pool.close()
         _JOB = None
 
 
@@ -206,11 +228,10 @@ def stream_files(plans, sites, fmt, *, explain=False, problems_only=False, tally
 
     check_piece.total = 0
     _TEXT_JOB = (plans, sites, fmt, explain, problems_only)
-    pool = _pool(workers, len(jobs))
+    pool = _Workers(workers, len(jobs))
     try:
-        yield from _emit(renderer(fmt), pool.imap(_work_text, jobs), sizes, tally, progress,
+        yield from _emit(renderer(fmt), pool.map(_work_text, jobs), sizes, tally, progress,
                          on_result=check_piece)
     finally:
-        pool.terminate()
-        pool.join()
+        pool.close()
         _TEXT_JOB = None

@@ -83,3 +83,24 @@ def test_multi_line_strings_are_never_cut():
     text = '[[machine]]\nid = "A"\ndescription = """\n[[machine]]\n"""\n[[machine]]\nid = "B"\n'
     assert runner.plan_file("x.toml", text) is None
     assert runner.plan_file("x.toml", text.replace('"""', '"')) is not None
+
+
+def _dies(job):
+    import os
+
+    os._exit(3)  # a worker killed mid-run (as by the out-of-memory killer)
+
+
+@pytest.mark.parametrize("to_file", [True, False])
+def test_a_dead_worker_ends_the_run_cleanly(small_pieces, tmp_path, monkeypatch, to_file):
+    monkeypatch.setattr(runner, "_work", _dies)
+    monkeypatch.setattr(runner, "_work_text", _dies)
+    catalog = tmp_path / "fleet.toml"
+    catalog.write_text(_demo_text(), encoding="utf-8")
+    out = tmp_path / "out.json"
+    args = ["check", str(catalog), "--format", "json"] + (["-o", str(out)] if to_file else [])
+    result = run(*args)
+    assert result.exit_code == 2
+    assert "worker process ended unexpectedly" in result.output
+    assert "Traceback" not in result.output
+    assert not out.exists()
