@@ -31,8 +31,13 @@ TEXT_COLUMNS = frozenset({"id", "description", "kind", "insulation_class", "effi
                           "load_type"})
 LIST_COLUMNS = frozenset({"voltage", "connection", "current", "locked_rotor_current"})
 LIST_SEPARATOR = ";"
+#: Cell separators recognised from the header line, and the list separator each leaves free:
+#: spreadsheets set to a decimal comma export with ";" between cells (and "0,86" is read as
+#: 0.86 in such a file).
+DELIMITERS = {",": ";", ";": "|", "\t": ";"}
 
 _INT = re.compile(r"^[+-]?\d+$")
+_DECIMAL_COMMA = re.compile(r"(?<=\d),(?=\d)")
 _FLOAT = re.compile(r"^[+-]?(\d+\.\d*|\.\d+|\d+)([eE][+-]?\d+)?$")
 
 
@@ -40,12 +45,15 @@ def _column_name(raw: str) -> str:
     return raw.strip().lower().replace(" ", "_").replace("-", "_")
 
 
-def _cell_value(column: str, text: str):
-    if column in LIST_COLUMNS and LIST_SEPARATOR in text:
-        return [_cell_value(column, part.strip()) for part in text.split(LIST_SEPARATOR)
-                if part.strip()]
+def _cell_value(column: str, text: str, separator: str = LIST_SEPARATOR,
+                decimal_comma: bool = False):
+    if column in LIST_COLUMNS and separator in text:
+        return [_cell_value(column, part.strip(), separator, decimal_comma)
+                for part in text.split(separator) if part.strip()]
     if column in TEXT_COLUMNS:
         return text
+    if decimal_comma:
+        text = _DECIMAL_COMMA.sub(".", text)
     if _INT.match(text):
         return int(text)
     if _FLOAT.match(text):
@@ -67,7 +75,10 @@ def read_inventory(path) -> tuple[dict, Locator, str]:
     text = read_text(name)
     if not text.strip():
         raise InputError("file is empty", file=name)
-    reader = csv.reader(io.StringIO(text, newline=""))
+    header_line = text.lstrip("\ufeff").split("\n", 1)[0]
+    delimiter = max(DELIMITERS, key=header_line.count)
+    separator = DELIMITERS[delimiter]
+    reader = csv.reader(io.StringIO(text, newline=""), delimiter=delimiter)
     errors: list[InputError] = []
     try:
         rows = list(reader)
@@ -119,7 +130,7 @@ def read_inventory(path) -> tuple[dict, Locator, str]:
         entry["rating"].append(rating)
         index[("machine", m_index, "rating", r_index)] = number
         for column, text in cells.items():
-            value = _cell_value(column, text)
+            value = _cell_value(column, text, separator, delimiter == ";")
             if column in RATING_COLUMNS:
                 rating[column] = value
                 index[("machine", m_index, "rating", r_index, column)] = number

@@ -89,3 +89,23 @@ def test_validate_reads_inventories(write):
     result = run("validate", write("inventory.csv", INVENTORY))
     assert result.exit_code == 0
     assert "2 machines" in result.output
+
+
+def test_semicolon_export_with_decimal_commas(write):
+    # Spreadsheets set to a decimal comma write ";" between cells; lists then take "|".
+    text = ("id;description;phases;frequency;voltage;connection;current;power;speed;"
+            "power_factor;efficiency\r\n"
+            "E-1;Pump, spare (invented);3;50 Hz;400 V|690 V;delta|star;28,4 A|16,4 A;15 kW;"
+            "1465 rpm;0,84;92,1 %\r\n")
+    m = load_catalog(write("export.csv", text)).machines[0]
+    rating = m.ratings[0]
+    assert [c.current_a for c in rating.connections] == [28.4, 16.4]
+    assert [c.name for c in rating.connections] == ["delta", "star"]
+    assert rating.power_factor == 0.84 and abs(rating.efficiency - 0.921) < 1e-12
+    assert m.description == "Pump, spare (invented)"
+
+
+def test_tab_separated_inventory(write):
+    text = "id\tfrequency\tvoltage\tpower\tspeed\nT-1\t60 Hz\t230 V; 460 V\t10 hp\t1760 rpm\n"
+    m = load_catalog(write("export.csv", text)).machines[0]
+    assert [c.voltage_v for c in m.ratings[0].connections] == [230.0, 460.0]
