@@ -109,3 +109,20 @@ def test_tab_separated_inventory(write):
     text = "id\tfrequency\tvoltage\tpower\tspeed\nT-1\t60 Hz\t230 V; 460 V\t10 hp\t1760 rpm\n"
     m = load_catalog(write("export.csv", text)).machines[0]
     assert [c.voltage_v for c in m.ratings[0].connections] == [230.0, 460.0]
+
+
+def test_convert_to_csv_on_stdout_has_one_row_per_rating_set():
+    import csv
+    import io
+
+    result = run("convert", _demo_path("fleet.toml"), "--to", "csv")
+    assert result.exit_code == 0
+    rows = list(csv.DictReader(io.StringIO(result.output)))
+    machines = load_catalog(_demo_path("fleet.toml")).machines
+    assert len(rows) == sum(len(m.ratings) for m in machines)
+    assert [r["id"] for r in rows if r["description"]] == [m.id for m in machines]
+
+
+def test_schema_and_convert_usage_errors_exit_2():
+    assert run("schema", "fleet").exit_code == 2
+    assert run("convert", _demo_path("fleet.toml"), "--to", "xlsx").exit_code == 2

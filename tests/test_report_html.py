@@ -112,3 +112,13 @@ def test_zone_outlines_are_the_zones_the_checker_uses():
     for df, dv in tolerance.nema_outline():
         assert tolerance.nema_variation(dv, df)[0]
         assert not tolerance.nema_variation(dv * 1.02 + 0.001 * (1 if dv >= 0 else -1), df)[0]
+
+
+def test_generator_on_a_nema_site_renders_its_figures():
+    g = machine({"frequency": "50 Hz", "voltage": "400 V", "power": "500 kVA"},
+                id="G-1", kind="synchronous-generator", poles=4)
+    page = html.render([assess(g, site(frequency="60 Hz", voltage="480 V", standard="NEMA"))])
+    parsed = parse(page)
+    text = " ".join(parsed.text)
+    assert "NEMA MG 1 12.44" in text and "available apparent power" in text
+    assert parsed.tags["svg"] == 1
