@@ -105,7 +105,7 @@ def read_inventory(path) -> tuple[dict, Locator, str]:
     by_id: dict[str, int] = {}
     index: dict = {}
     for number, row in enumerate(rows[1:], start=2):
-        if not any(cell.strip() for cell in row) or row[0].lstrip().startswith("#"):
+        if not any(cell.strip() for cell in row):
             continue
         if len(row) > len(header):
             errors.append(InputError(f"{len(row)} cells for {len(header)} columns (is a comma "
@@ -233,13 +233,15 @@ def to_toml(data: dict, *, title: str | None = None) -> str:
     for entry in data["machine"]:
         out.append("[[machine]]")
         out += [f"{key} = {_toml_value(value)}" for key, value in entry.items()
-                if key not in ("rating", "load")]
+                if key not in ("rating", "load") and value is not None]
         for rating in entry.get("rating", []):
             out.append("  [[machine.rating]]")
-            out += [f"  {key} = {_toml_value(value)}" for key, value in rating.items()]
-        if "load" in entry:
+            out += [f"  {key} = {_toml_value(value)}" for key, value in rating.items()
+                    if value is not None]
+        if entry.get("load") is not None:
             out.append("  [machine.load]")
-            out += [f"  {key} = {_toml_value(value)}" for key, value in entry["load"].items()]
+            out += [f"  {key} = {_toml_value(value)}" for key, value in entry["load"].items()
+                    if value is not None]
         out.append("")
     return "\n".join(out)
 
@@ -257,16 +259,16 @@ def to_csv(data: dict) -> str:
     rows = []
     used: list[str] = []
     for entry in data["machine"]:
-        machine_cells = {k: v for k, v in entry.items() if k in MACHINE_COLUMNS}
+        machine_cells = {k: v for k, v in entry.items() if k in MACHINE_COLUMNS and v is not None}
         load_cells = {c: entry["load"][k] for c, k in LOAD_COLUMNS.items()
-                      if k in entry.get("load", {})}
+                      if entry.get("load", {}).get(k) is not None}
         for position, rating in enumerate(entry.get("rating", [])):
             row = {"id": entry.get("id")}
             if position == 0:
                 row.update(machine_cells)
                 row.update(load_cells)
-            row.update(rating)
-            if "service_factor" in entry and "service_factor" not in rating:
+            row.update((k, v) for k, v in rating.items() if v is not None)
+            if entry.get("service_factor") is not None and rating.get("service_factor") is None:
                 row["service_factor"] = entry["service_factor"]
             rows.append(row)
             used += [k for k in row if k not in used]

@@ -183,3 +183,26 @@ def test_circuit_returns_its_plate_and_behaves_at_part_load(plate, load):
     assert part.speed_rpm >= rated.speed_rpm - 1e-6
     assert part.current_a <= rated.current_a * (1 + 1e-9)
     assert all(math.isfinite(x) for x in (part.current_a, part.power_factor, part.speed_rpm))
+
+
+@SETTINGS
+@given(machine_dicts())
+def test_catalog_round_trips_through_a_csv_inventory(machine_data):
+    # Whatever a TOML catalog accepts, its CSV form gives back the same machines.
+    import dataclasses
+
+    from machinecheck.inventory import load_inventory, to_csv
+
+    try:
+        machines = catalog_from_data({"machine": [machine_data]}, "gen").machines
+    except MachinecheckError:
+        return
+    import tempfile
+
+    with tempfile.TemporaryDirectory() as folder:
+        path = f"{folder}/inventory.csv"
+        with open(path, "w", encoding="utf-8", newline="") as handle:
+            handle.write(to_csv({"machine": [machine_data]}))
+        back = load_inventory(path).machines
+    assert [dataclasses.replace(m, source=None) for m in back] == [
+        dataclasses.replace(m, source=None) for m in machines]
