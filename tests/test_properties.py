@@ -206,3 +206,9 @@ def test_catalog_round_trips_through_a_csv_inventory(machine_data):
         back = load_inventory(path).machines
     assert [dataclasses.replace(m, source=None) for m in back] == [
         dataclasses.replace(m, source=None) for m in machines]
+    # and written as TOML, the same again
+    from machinecheck.catalog import tomllib
+    from machinecheck.inventory import to_toml
+
+    again = catalog_from_data(tomllib.loads(to_toml({"machine": [machine_data]})), "gen").machines
+    assert again == machines
