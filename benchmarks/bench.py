@@ -20,7 +20,7 @@ sys.path.insert(0, os.path.dirname(__file__))
 from generate import SITES, catalog
 
 PY = sys.executable
-CLI = [PY, "-m", "machinecheck.cli"]
+CLI = [PY, "-m", "machinecheck"]
 
 
 def _tree(pid):

@@ -432,22 +432,6 @@ def render(fmt, results, *, explain=False, matrix=False, sites=(), machines=(), 
 
 # ----------------------------------------------------------------------------- lookups
 
-def _value(text, kind, option):
-    from . import units
-
-    try:
-        return units.parse(_number_or_text(text), kind)
-    except InputError as exc:
-        raise InputError(exc.message, key=option) from None
-
-
-def _number_or_text(text):
-    try:
-        return float(text)
-    except (TypeError, ValueError):
-        return text
-
-
 @main.command()
 @click.option("--poles", type=int, help="number of poles (or give --rated-speed)")
 @click.option("--frequency", required=True, help="supply frequency, e.g. 50 or '50 Hz'")
@@ -456,32 +440,9 @@ def _number_or_text(text):
 @_report_errors
 def speed(poles, frequency, rated_speed, rated_frequency):
     """Synchronous speed, and the slip-adjusted speed at a new frequency."""
-    from .physics import speed as sp
+    from .lookups import speed_lines
 
-    f = _value(frequency, "frequency", "--frequency")
-    f_rated = _value(rated_frequency, "frequency", "--rated-frequency") if rated_frequency else f
-    n_rated = _value(rated_speed, "speed", "--rated-speed") if rated_speed else None
-    if poles is None:
-        if n_rated is None:
-            raise InputError("give --poles, or --rated-speed to infer them", key="--poles")
-        try:
-            poles = sp.poles_from_speed(n_rated, f_rated)
-        except MachinecheckError as exc:
-            raise InputError(str(exc), key="--rated-speed") from None
-    try:
-        n_s = sp.synchronous_speed(f, poles)
-    except MachinecheckError as exc:
-        raise InputError(str(exc), key="--poles") from None
-    click.echo(f"synchronous speed {n_s:.0f} rpm  ({poles} poles at {f:g} Hz: 120 x {f:g} / {poles})")
-    if n_rated is not None:
-        n_s_rated = sp.synchronous_speed(f_rated, poles)
-        slip_rpm = n_s_rated - n_rated
-        if slip_rpm <= 0:
-            raise InputError(f"rated speed {n_rated:g} rpm is not below synchronous "
-                             f"{n_s_rated:g} rpm", key="--rated-speed")
-        n = sp.running_speed(n_s, slip_rpm)
-        click.echo(f"running speed     {n:.0f} rpm ±{0.2 * slip_rpm:.0f}  (rated torque, constant "
-                   f"V/f: slip {slip_rpm:.0f} rpm kept; {100 * slip_rpm / n_s:.1f} % at {f:g} Hz)")
+    _echo_lines(speed_lines(poles, frequency, rated_speed, rated_frequency))
 
 
 @main.command()
@@ -490,17 +451,9 @@ def speed(poles, frequency, rated_speed, rated_frequency):
 @_report_errors
 def poles(speed_text, frequency):
     """Pole count, synchronous speed and slip from a nameplate speed."""
-    from .physics import speed as sp
+    from .lookups import poles_lines
 
-    n = _value(speed_text, "speed", "--speed")
-    f = _value(frequency, "frequency", "--frequency")
-    try:
-        p = sp.poles_from_speed(n, f)
-    except MachinecheckError as exc:
-        raise InputError(str(exc), key="--speed") from None
-    n_s = sp.synchronous_speed(f, p)
-    click.echo(f"{p} poles  (synchronous {n_s:.0f} rpm at {f:g} Hz; slip {n_s - n:.0f} rpm = "
-               f"{100 * sp.slip(n_s, n):.1f} %)")
+    _echo_lines(poles_lines(speed_text, frequency))
 
 
 @main.command()
@@ -512,30 +465,14 @@ def poles(speed_text, frequency):
 @_report_errors
 def current(power, voltage, phases, efficiency, power_factor):
     """Full-load current from output, voltage, efficiency and power factor."""
-    from .physics import current as cp
+    from .lookups import current_lines
 
-    volts = _value(voltage, "voltage", "--voltage")
-    phase_count = int(phases)
-    root = "sqrt(3) x " if phase_count == 3 else ""
-    if isinstance(_number_or_text(power), str) and power.strip().lower().endswith("va"):
-        apparent = _value(power, "apparent_power", "--power")
-        amps = cp.apparent_power_current(apparent, volts, phase_count)
-        click.echo(f"{amps:.1f} A  (S / ({root}V) = {apparent:.0f} / ({root}{volts:g}))")
-        return
-    watts = _value(power, "power", "--power")
-    missing = [name for name, v in (("--efficiency", efficiency),
-                                    ("--power-factor", power_factor)) if v is None]
-    if missing:
-        raise InputError(f"give {' and '.join(missing)} from the nameplate (the current of a "
-                         "shaft output depends on them)", key=missing[0])
-    eta = _value(efficiency, "fraction", "--efficiency")
-    pf = _value(power_factor, "fraction", "--power-factor")
-    try:
-        amps = cp.full_load_current(watts, volts, eta, pf, phase_count)
-    except MachinecheckError as exc:
-        raise InputError(str(exc), key="--efficiency") from None
-    click.echo(f"{amps:.1f} A  (P / ({root}V x eta x PF) = {watts:.0f} / ({root}{volts:g} x "
-               f"{eta:g} x {pf:g}); {phase_count}-phase)")
+    _echo_lines(current_lines(power, voltage, phases, efficiency, power_factor))
+
+
+def _echo_lines(lines) -> None:
+    for line in lines:
+        click.echo(line)
 
 
 @main.command()

@@ -274,7 +274,8 @@ def to_csv(data: dict) -> str:
             used += [k for k in row if k not in used]
     columns = [c for c in COLUMNS if c in used]
     buffer = io.StringIO()
-    writer = csv.writer(buffer, lineterminator="\n")
+    # RFC 4180 line ends: a cell holding a carriage return is then quoted too
+    writer = csv.writer(buffer, lineterminator="\r\n")
     writer.writerow(columns)
     for row in rows:
         writer.writerow([_csv_cell(row[c]) if c in row else "" for c in columns])
