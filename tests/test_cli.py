@@ -274,3 +274,19 @@ def test_streamed_json_equals_the_whole_document():
                          load_sites(_demo_path("sites.toml")))
     assert run("check", "--format", "json").output == json_.render(results)
     assert json.loads(json_.render([]))["results"] == []
+
+
+def test_narrow_terminal_lists_findings_below_the_table():
+    from machinecheck.catalog import load_catalog, load_sites
+    from machinecheck.check import assess_all
+    from machinecheck.cli import _demo_path
+    from machinecheck.report import table
+
+    results = assess_all(load_catalog(_demo_path("fleet.toml")).machines,
+                         [s for s in load_sites(_demo_path("sites.toml")) if s.id == "harrowgate"])
+    narrow = table.render(results, width=80, color=False)
+    wide = table.render(results, width=120, color=False)
+    assert "findings" not in narrow.splitlines()[3] and "findings" in wide
+    assert "K-111 (incompatible):" in narrow
+    assert max(len(line.rstrip()) for line in narrow.splitlines()) <= 80
+    assert "incompatible" in narrow and "…" not in narrow.split("K-111 (")[0]

@@ -9,6 +9,9 @@ from . import CAUTION
 from .data import by_site, driving_findings, number, output_text, summary_counts, worst_first
 from .matrix import verdict_matrix
 
+#: Terminal width under which findings are listed below each site's table.
+NARROW_WIDTH = 100
+
 _STYLE = {"compatible": "green", "conditional": "yellow", "incompatible": "bold red"}
 _MARK = {"compatible": "compatible", "conditional": "conditional",
          "incompatible": "incompatible"}
@@ -23,6 +26,7 @@ def _safe(text: str, limit: int = 400) -> str:
 
 def render(assessments, *, explain=False, matrix=False, width=None, color=None, **_) -> str:
     from rich.console import Console
+    from rich.padding import Padding
     from rich.table import Table
     from rich.text import Text
 
@@ -31,20 +35,24 @@ def render(assessments, *, explain=False, matrix=False, width=None, color=None, 
     console = Console(file=buffer, width=width or 120, markup=False, highlight=False,
                       no_color=no_color, force_terminal=not no_color and color is True,
                       emoji=False)
+    # below this width the findings read better under the table than in a narrow column
+    beside = console.width >= NARROW_WIDTH
     for group in by_site(assessments).values():
         s = group[0].site
         title = (f"{_safe(s.id)} - {_safe(s.name)}: " if s.name else f"{_safe(s.id)}: ")
         title += (f"{s.voltage_v:g} V {s.frequency_hz:g} Hz, {s.phases} phase"
                   f"{'s' if s.phases > 1 else ''}, {s.standard}")
-        table = Table(title=title, title_justify="left", show_lines=True, expand=False)
+        table = Table(title=title, title_justify="left", show_lines=beside, expand=False)
         table.add_column("machine", overflow="fold", max_width=16)
-        table.add_column("verdict")
+        table.add_column("verdict", no_wrap=True, min_width=12)
         table.add_column("n_s rpm", justify="right")
         table.add_column("speed rpm", justify="right")
         table.add_column("output kW", justify="right")
         table.add_column("FLC A", justify="right")
         table.add_column("load A", justify="right")
-        table.add_column("findings", overflow="fold", ratio=1)
+        if beside:
+            table.add_column("findings", overflow="fold", ratio=1)
+        below = []
         for a in worst_first(group):
             found = driving_findings(a)
             lines = [f"{'✗' if f.severity == 'problem' else '!'} {f.message}" for f in found]
@@ -57,13 +65,19 @@ def render(assessments, *, explain=False, matrix=False, width=None, color=None, 
             if a.machine.is_generator and a.available_apparent_power_va is not None:
                 output = (f"{a.available_apparent_power_va / 1000:.0f} / "
                           f"{a.rated_apparent_power_va / 1000:.0f} kVA")
-            table.add_row(Text(_safe(a.machine.id)),
-                          Text(_MARK[a.verdict], style=_STYLE[a.verdict]),
-                          f"{a.synchronous_speed_rpm:.0f}", speed, output,
-                          number(a.full_load_current_a, ".1f"),
-                          number(a.operating_current_a, ".1f"),
-                          Text(_safe("\n".join(lines), 4000)))
+            cells = [Text(_safe(a.machine.id)), Text(_MARK[a.verdict], style=_STYLE[a.verdict]),
+                     f"{a.synchronous_speed_rpm:.0f}", speed, output,
+                     number(a.full_load_current_a, ".1f"), number(a.operating_current_a, ".1f")]
+            if beside:
+                cells.append(Text(_safe("\n".join(lines), 4000)))
+            else:
+                below.append((a, lines))
+            table.add_row(*cells)
         console.print(table)
+        for a, lines in below:
+            console.print(Text(f"{_safe(a.machine.id)} ({a.verdict}):", style="bold"))
+            for line in lines:
+                console.print(Padding(Text(_safe(line, 4000)), (0, 0, 0, 2)))
         if explain:
             for a in worst_first(group):
                 console.print(Text(f"working for {_safe(a.machine.id)} at {_safe(s.id)}:",
