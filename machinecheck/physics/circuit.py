@@ -200,15 +200,11 @@ def estimate(power_w: float, voltage_v: float, frequency_hz: float, poles: int,
         if fit is None:
             return None, None
         x1, x2, _, xm = fit
-        denominator = r1 * r1 + (x1 + xm) ** 2
-        z_th = complex(0.0, xm) * complex(r1, x1) / complex(r1, x1 + xm)
-        x_total = z_th.imag + x2
-        t_max = 3.0 * v_ph * v_ph * xm * xm / denominator / (
-            2.0 * w_sync * (z_th.real + math.sqrt(z_th.real ** 2 + x_total ** 2)))
-        return math.log(t_max / target), fit
+        v_th, r_th, x_th = _thevenin(r1, x1, xm, v_ph)
+        return math.log(_peak(v_th, r_th, x_th + x2, w_sync)[0] / target), fit
 
-    # T_max falls as the leakage grows: bracket the root, then regula falsi (Illinois) with a
-    # bisection step whenever the secant leaves the bracket or the circuit does not fit.
+    # T_max falls as the leakage grows: bracket the root, then regula falsi with a bisection
+    # step whenever the secant leaves the bracket or the circuit does not fit.
     lo, hi = 0.0, abs(z_in)
     f_lo, best = excess(1e-6 * hi)
     f_hi = None
@@ -241,19 +237,25 @@ def estimate(power_w: float, voltage_v: float, frequency_hz: float, poles: int,
                    rated_speed_rpm=speed_rpm, current_fitted=current_fitted)
 
 
-def _thevenin(c: Circuit, v_ph: float, f_ratio: float):
-    x1, xm = c.x1_ohm * f_ratio, c.xm_ohm * f_ratio
-    denominator = c.r1_ohm * c.r1_ohm + (x1 + xm) ** 2
-    v_th = v_ph * xm / math.sqrt(denominator)
-    z_th = complex(0.0, xm) * complex(c.r1_ohm, x1) / complex(c.r1_ohm, x1 + xm)
+def _thevenin(r1: float, x1: float, xm: float, v_ph: float):
+    """(V_th, R_th, X_th) of the stator and magnetising branches, seen from the rotor."""
+    v_th = v_ph * xm / math.sqrt(r1 * r1 + (x1 + xm) ** 2)
+    z_th = complex(0.0, xm) * complex(r1, x1) / complex(r1, x1 + xm)
     return v_th, z_th.real, z_th.imag
 
 
 def _torque_terms(c: Circuit, voltage_v: float, frequency_hz: float):
     """(V_th, R_th, X_th + X2, w_sync) of the circuit on a supply."""
     f_ratio = frequency_hz / c.frequency_hz
-    v_th, r_th, x_th = _thevenin(c, voltage_v / math.sqrt(3.0), f_ratio)
+    v_th, r_th, x_th = _thevenin(c.r1_ohm, c.x1_ohm * f_ratio, c.xm_ohm * f_ratio,
+                                 voltage_v / math.sqrt(3.0))
     return v_th, r_th, x_th + c.x2_ohm * f_ratio, 4.0 * math.pi * frequency_hz / c.poles
+
+
+def _peak(v_th: float, r_th: float, x_total: float, w_sync: float) -> tuple[float, float]:
+    """(T_max, sqrt(R_th^2 + (X_th + X2)^2)) from the Thevenin terms."""
+    root = math.sqrt(r_th * r_th + x_total * x_total)
+    return 3.0 * v_th * v_th / (2.0 * w_sync * (r_th + root)), root
 
 
 def breakdown(c: Circuit, voltage_v: float, frequency_hz: float) -> tuple[float, float]:
@@ -277,9 +279,8 @@ def breakdown(c: Circuit, voltage_v: float, frequency_hz: float) -> tuple[float,
     .. [1] S. J. Chapman, *Electric Machinery Fundamentals*, 4th ed., sec. 7.6 (maximum torque
        from the Thevenin equivalent).
     """
-    v_th, r_th, x_total, w_sync = _torque_terms(c, voltage_v, frequency_hz)
-    root = math.sqrt(r_th * r_th + x_total * x_total)
-    return 3.0 * v_th * v_th / (2.0 * w_sync * (r_th + root)), c.r2_ohm / root
+    t_max, root = _peak(*_torque_terms(c, voltage_v, frequency_hz))
+    return t_max, c.r2_ohm / root
 
 
 def rotational_loss(c: Circuit, speed_rpm: float) -> float:
