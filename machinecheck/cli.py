@@ -318,11 +318,7 @@ def check(catalogs, sites_file, site_ids, machine_ids, fmt, output, problems_onl
     sites = _select(sites, site_ids, "site")
     inputs = ([m.source for m in machines] + [s.source for s in sites] + list(catalogs)
               + ([sites_file] if sites_file else []))
-    bar = None
-    if sys.stderr.isatty() and len(machines) * len(sites) > 2000:
-        bar = click.progressbar(length=len(machines), label="checking", file=sys.stderr)
-        bar.__enter__()
-    try:
+    with _progress(len(machines), len(machines) * len(sites) > 2000) as bar:
         if fmt in STREAMED_FORMATS:
             tally, text = _streamed(machines, sites, fmt, explain, problems_only, bar)
         else:
@@ -333,13 +329,24 @@ def check(catalogs, sites_file, site_ids, machine_ids, fmt, output, problems_onl
         else:
             for piece in text:
                 click.echo(piece, nl=False)
-    finally:
-        if bar is not None:
-            bar.__exit__(None, None, None)
+    sys.exit(_finish(tally, output, strict))
+
+
+def _progress(machines: int, large: bool):
+    """A progress bar on stderr for a large check when stderr is a terminal, else nothing."""
+    import contextlib
+
+    if large and sys.stderr.isatty():
+        return click.progressbar(length=machines, label="checking", file=sys.stderr)
+    return contextlib.nullcontext()
+
+
+def _finish(tally, output, strict) -> int:
+    """Say where the report went; the exit status of the check."""
     if output:
         click.echo(f"wrote {tally.shown} results to {output}", err=True)
     failing = tally.counts["incompatible"] + (tally.counts["conditional"] if strict else 0)
-    sys.exit(EXIT_PROBLEM if failing else EXIT_OK)
+    return EXIT_PROBLEM if failing else EXIT_OK
 
 
 STREAMED_FORMATS = ("json", "csv")
@@ -370,25 +377,16 @@ def _from_texts(catalogs, sites_file, site_ids, values, fmt, output, explain, pr
     if sum(p.machines for p in plans) * len(sites) < runner.PARALLEL_PAIRS:
         return None
     tally = runner.Tally()
-    bar = None
-    if sys.stderr.isatty():
-        bar = click.progressbar(length=sum(p.machines for p in plans), label="checking",
-                                file=sys.stderr)
-        bar.__enter__()
     try:
-        write_output(runner.stream_files(plans, sites, fmt, explain=explain,
-                                         problems_only=problems_only, tally=tally,
-                                         progress=None if bar is None else bar.update,
-                                         workers=workers),
-                     output, [*catalogs, sites_file, *(s.source for s in sites)])
+        with _progress(sum(p.machines for p in plans), True) as bar:
+            write_output(runner.stream_files(plans, sites, fmt, explain=explain,
+                                             problems_only=problems_only, tally=tally,
+                                             progress=None if bar is None else bar.update,
+                                             workers=workers),
+                         output, [*catalogs, sites_file, *(s.source for s in sites)])
     except runner.Redo:
         return None
-    finally:
-        if bar is not None:
-            bar.__exit__(None, None, None)
-    click.echo(f"wrote {tally.shown} results to {output}", err=True)
-    failing = tally.counts["incompatible"] + (tally.counts["conditional"] if strict else 0)
-    return EXIT_PROBLEM if failing else EXIT_OK
+    return _finish(tally, output, strict)
 
 
 def _streamed(machines, sites, fmt, explain, problems_only, bar):
@@ -406,22 +404,18 @@ def _rendered(machines, sites, fmt, explain, problems_only, matrix, bar, *, to_t
     from .runner import Tally
 
     progress = None if bar is None else (lambda: bar.update(1))
-    results = assess_all(machines, sites, explain=explain, progress=progress)
-    tally = Tally()
-    for a in results:
-        tally.counts[a.verdict] += 1
-    shown = [a for a in results if a.verdict != "compatible"] if problems_only else results
-    tally.shown = len(shown)
+    tally, shown = Tally.of(assess_all(machines, sites, explain=explain, progress=progress),
+                            problems_only)
     return tally, [render(fmt, shown, explain=explain, matrix=matrix, sites=sites,
                           machines=machines, to_terminal=to_terminal)]
 
 
 def render(fmt, results, *, explain=False, matrix=False, sites=(), machines=(), to_terminal=True):
-    import importlib
     import shutil
 
-    module = importlib.import_module(f".report.{ {'json': 'json_', 'csv': 'csv_'}.get(fmt, fmt) }",
-                                     __package__)
+    from .report import renderer
+
+    module = renderer(fmt)
     width = shutil.get_terminal_size((100, 24)).columns
     color = None
     if fmt == "table":

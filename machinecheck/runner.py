@@ -14,12 +14,14 @@ first attempt.
 
 from __future__ import annotations
 
-import importlib
 import multiprocessing
 import os
 import re
 import sys
 from dataclasses import dataclass, field
+
+from .check import VERDICTS
+from .report import renderer
 
 #: Machines per chunk of work.
 CHUNK_MACHINES = 400
@@ -51,8 +53,7 @@ class FilePlan:
 class Tally:
     """Verdict counts of every pair checked, and the number of pairs rendered."""
 
-    counts: dict = field(default_factory=lambda: {"compatible": 0, "conditional": 0,
-                                                  "incompatible": 0})
+    counts: dict = field(default_factory=lambda: dict.fromkeys(VERDICTS, 0))
     shown: int = 0
 
     def add(self, counts: dict, shown: int) -> None:
@@ -60,10 +61,15 @@ class Tally:
             self.counts[verdict] += number
         self.shown += shown
 
-
-def renderer(fmt: str):
-    return importlib.import_module(f".report.{ {'json': 'json_', 'csv': 'csv_'}[fmt] }",
-                                   __package__)
+    @classmethod
+    def of(cls, results, problems_only: bool):
+        """The tally of checked pairs, and the pairs to render."""
+        tally = cls()
+        for a in results:
+            tally.counts[a.verdict] += 1
+        shown = [a for a in results if a.verdict != "compatible"] if problems_only else results
+        tally.shown = len(shown)
+        return tally, shown
 
 
 def _work(bounds):
@@ -100,12 +106,8 @@ def _work_text(job):
 def _checked(machines, sites, fmt, explain, problems_only):
     from .check import assess_all
 
-    results = assess_all(machines, sites, explain=explain)
-    counts = {"compatible": 0, "conditional": 0, "incompatible": 0}
-    for a in results:
-        counts[a.verdict] += 1
-    shown = [a for a in results if a.verdict != "compatible"] if problems_only else results
-    return renderer(fmt).chunk(shown, explain=explain), counts, len(shown)
+    tally, shown = Tally.of(assess_all(machines, sites, explain=explain), problems_only)
+    return renderer(fmt).chunk(shown, explain=explain), tally.counts, tally.shown
 
 
 def workers_available() -> int:
@@ -218,15 +220,10 @@ def stream_files(plans, sites, fmt, *, explain=False, problems_only=False, tally
     seen: set = set()
 
     def check_piece(result):
-        if result is None:
-            raise Redo
-        ids = result[3]
-        seen.update(ids)
-        if len(seen) != check_piece.total + len(ids):
-            raise Redo  # a duplicate id: the whole load names both places
-        check_piece.total += len(ids)
+        if result is None or not seen.isdisjoint(result[3]):
+            raise Redo  # a piece's problem, or an id another piece has: the whole load names it
+        seen.update(result[3])
 
-    check_piece.total = 0
     _TEXT_JOB = (plans, sites, fmt, explain, problems_only)
     pool = _Workers(workers, len(jobs))
     try:

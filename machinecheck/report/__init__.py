@@ -5,3 +5,11 @@ CAUTION = ("Caution: figures are estimates from nameplate data. Verify with the 
            "reconnection; follow local electrical codes and licensed practice.")
 
 FORMATS = ("table", "json", "markdown", "html", "csv")
+
+
+def renderer(fmt: str):
+    """The renderer module of a format (imported on first use: rich only for the table)."""
+    import importlib
+
+    return importlib.import_module(f".{ {'json': 'json_', 'csv': 'csv_'}.get(fmt, fmt) }",
+                                   __name__)
