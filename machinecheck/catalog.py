@@ -98,11 +98,14 @@ def parse_toml(text: str, name: str) -> dict:
 
 
 class Locator:
-    """Finds the line of a table or key in TOML text; built only when an error needs it."""
+    """Finds the line of a table or key in TOML text; built only when an error needs it.
 
-    def __init__(self, text: str | None):
-        self._text = text
-        self._index: dict | None = None
+    ``index`` gives the lines ready-made ({path: line}), as a spreadsheet reader knows them.
+    """
+
+    def __init__(self, text: str | None, index: dict | None = None):
+        self._text = "" if text is None and index is not None else text
+        self._index = index
 
     def _build(self) -> dict:
         index: dict = {}

@@ -61,14 +61,6 @@ def _cell_value(column: str, text: str, separator: str = LIST_SEPARATOR,
     return text
 
 
-class _RowLocator(Locator):
-    """Locator over spreadsheet rows: the path of a field maps to the row it came from."""
-
-    def __init__(self, index: dict):
-        super().__init__("")
-        self._index = index
-
-
 def read_inventory(path) -> tuple[dict, Locator, str]:
     """Read a CSV inventory into catalog data; return (data, row locator, file name)."""
     name = str(path)
@@ -155,7 +147,7 @@ def read_inventory(path) -> tuple[dict, Locator, str]:
         raise InputErrors(errors)
     if not machines:
         raise InputError("no machine rows under the header", file=name, line=2, column="")
-    return {"machine": machines}, _RowLocator(index), name
+    return {"machine": machines}, Locator(None, index), name  # a field's path -> its row
 
 
 def _conflict(name, number, column, machine_id, earlier, row) -> InputError:
