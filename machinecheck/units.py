@@ -4,15 +4,21 @@ Quantities arrive as strings with a unit ("75 kW", "100 hp", "1780 rpm", "45 deg
 numbers in the documented default unit of their kind. Inside the project every value is a plain
 float in the internal unit of its kind (SI, with rpm for shaft speed and degC for temperature).
 
-pint is the only source of unit definitions, but building its registry costs a few tenths of a
-second and parsing a string costs ~150 us, so: the number is split from the unit with a regular
-expression, each distinct (unit, kind) pair is converted by pint once and its scale and offset
-cached, and a bare number or the kind's default unit never builds the registry at all.
+pint is the only source of unit definitions, but importing it and building its registry costs
+a few tenths of a second and parsing a string costs ~150 us, so: the number is split from the
+unit with a regular expression, each distinct (unit, kind) pair is converted by pint once and its
+scale and offset cached, and a bare number or the kind's default unit never builds the registry
+at all. The scales pint gave are also kept on disk (see :func:`cache_path`), keyed by the
+installed pint and by this module's unit tables, so later runs read "hp" or "kV" without
+importing pint; pint's own registry cache is used likewise.
 """
 
 from __future__ import annotations
 
+import contextlib
+import json
 import math
+import os
 import re
 
 from .errors import InputError
@@ -81,9 +87,93 @@ def _conversion(unit: str, kind: str) -> tuple[float, float] | str:
     elif unit == internal and kind != "percent":
         result = (1.0, 0.0)
     else:
-        result = _pint_conversion(_ALIASES.get(unit, unit), kind)
+        stored = _stored().get(f"{kind} {unit}")
+        if stored is not None:
+            result = (float(stored[0]), float(stored[1]))
+        else:
+            result = _pint_conversion(_ALIASES.get(unit, unit), kind)
+            if not isinstance(result, str):
+                _store(f"{kind} {unit}", result)
     _conversions[key] = result
     return result
+
+
+# ----------------------------------------------------------------------------- on-disk cache
+
+_CACHE_FORMAT = 1
+_stored_table: dict | None = None
+
+
+def cache_path() -> str | None:
+    """The file keeping pint's scales between runs, or None when caching is off.
+
+    ``MACHINECHECK_CACHE`` names the folder ("" turns the cache off); otherwise it is
+    ``$XDG_CACHE_HOME/machinecheck`` or ``~/.cache/machinecheck``.
+    """
+    folder = os.environ.get("MACHINECHECK_CACHE")
+    if folder is None:
+        base = os.environ.get("XDG_CACHE_HOME") or os.path.join(os.path.expanduser("~"), ".cache")
+        folder = os.path.join(base, "machinecheck")
+    return os.path.join(folder, "unit-scales.json") if folder else None
+
+
+def _cache_key() -> str:
+    """What the stored scales depend on: the installed pint, and this module's tables."""
+    import importlib.util
+
+    spec = importlib.util.find_spec("pint")
+    try:
+        stat = os.stat(spec.origin) if spec is not None and spec.origin else None
+    except OSError:
+        stat = None
+    pint_id = f"{spec.origin}:{stat.st_mtime_ns}:{stat.st_size}" if stat else "no pint"
+    import zlib
+
+    code = _pint_conversion.__code__
+    tables = json.dumps([_CACHE_FORMAT, KINDS, _ALIASES], sort_keys=True)
+    checksum = zlib.crc32(tables.encode() + code.co_code + repr(code.co_consts).encode())
+    return f"{pint_id}|{checksum:08x}"
+
+
+def _stored() -> dict:
+    """The scales kept on disk by earlier runs for the installed pint ({} if none or stale)."""
+    global _stored_table
+    if _stored_table is None:
+        _stored_table = {}
+        path = cache_path()
+        if path is not None:
+            try:
+                with open(path, encoding="utf-8") as handle:
+                    data = json.load(handle)
+                if data.get("key") == _cache_key() and isinstance(data.get("scales"), dict):
+                    _stored_table = {name: value for name, value in data["scales"].items()
+                                     if _is_scale(value)}
+            except (OSError, ValueError, AttributeError):
+                pass  # a missing, unreadable or damaged cache is rebuilt from pint
+    return _stored_table
+
+
+def _is_scale(value) -> bool:
+    return (isinstance(value, list) and len(value) == 2
+            and all(type(x) in (int, float) and math.isfinite(x) for x in value))
+
+
+def _store(name: str, scale: tuple[float, float]) -> None:
+    """Keep one scale pint gave; written whole and atomically; failures are ignored."""
+    table = _stored()
+    table[name] = list(scale)
+    path = cache_path()
+    if path is None:
+        return
+    temporary = f"{path}.{os.getpid()}.tmp"
+    try:
+        os.makedirs(os.path.dirname(path), exist_ok=True)
+        with open(temporary, "w", encoding="utf-8") as handle:
+            json.dump({"key": _cache_key(), "scales": table}, handle)
+        os.replace(temporary, path)
+    except OSError:
+        with contextlib.suppress(OSError):
+            os.unlink(temporary)
 
 
 def _pint_conversion(unit: str, kind: str) -> tuple[float, float] | str:

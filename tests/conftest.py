@@ -1,9 +1,16 @@
+import atexit
 import os
+import shutil
+import tempfile
 
 import pytest
 
 os.environ.setdefault("NO_COLOR", "1")
 os.environ["COLUMNS"] = "120"
+# the unit-scale cache of the runs under test stays out of the user's own cache folder
+_CACHE = tempfile.mkdtemp(prefix="machinecheck-test-cache-")
+os.environ["MACHINECHECK_CACHE"] = _CACHE
+atexit.register(shutil.rmtree, _CACHE, True)
 
 HERE = os.path.dirname(__file__)
 
