@@ -6,67 +6,87 @@ from ..check import SEVERITIES, VERDICTS
 
 
 def _r(value, digits):
-    return None if value is None else round(float(value), digits)
+    """``value`` rounded to ``digits`` decimals, exactly as round(value, digits); None stays None.
+
+    round(x * 10**d) / 10**d is the same float except where x * 10**d lies near a half, so
+    only those go to round(x, d): half the time at thirty figures a pair.
+    """
+    if value is None:
+        return None
+    scale = _SCALES[digits]
+    scaled = value * scale
+    if -1e15 < scaled < 1e15:
+        whole = round(scaled)
+        if whole and 0.5 - abs(scaled - whole) > 1e-6:  # zero keeps its sign through round()
+            return whole / scale
+    return round(float(value), digits)
+
+
+_SCALES = {digits: 10.0 ** digits for digits in range(6)}
+
+
+def _kilo(value, digits):
+    return None if value is None else _r(value / 1000.0, digits)
 
 
 def result_dict(a, *, explain: bool = False) -> dict:
     """The JSON contract of one (machine, site) result; see docs/json.md."""
+    r = _r
     c = a.connection
     lrc = a.locked_rotor_current_a
     t = a.tolerance
+    code_current = a.code_current_a
     data = {
         "machine": a.machine.id,
         "site": a.site.id,
         "verdict": a.verdict,
-        "rating": {"frequency_hz": _r(a.rating.frequency_hz, 3),
-                   "voltage_v": _r(a.rated_voltage_v, 1),
+        "rating": {"frequency_hz": r(a.rating.frequency_hz, 3),
+                   "voltage_v": r(a.rated_voltage_v, 1),
                    "connection": c.name},
-        "synchronous_speed_rpm": _r(a.synchronous_speed_rpm, 1),
-        "expected_speed_rpm": _r(a.expected_speed_rpm, 1),
-        "available_power_kw": _r(None if a.available_power_w is None
-                                 else a.available_power_w / 1000.0, 2),
-        "load_power_kw": _r(None if a.load_power_w is None else a.load_power_w / 1000.0, 2),
-        "full_load_current_a": _r(a.full_load_current_a, 1),
-        "flux_ratio": _r(a.flux_ratio, 4),
+        "synchronous_speed_rpm": r(a.synchronous_speed_rpm, 1),
+        "expected_speed_rpm": r(a.expected_speed_rpm, 1),
+        "available_power_kw": _kilo(a.available_power_w, 2),
+        "load_power_kw": _kilo(a.load_power_w, 2),
+        "full_load_current_a": r(a.full_load_current_a, 1),
+        "flux_ratio": r(a.flux_ratio, 4),
         "findings": [{"code": f.code, "severity": f.severity, "message": f.message}
                      for f in a.findings],
-        "rated_power_kw": _r(a.rated_power_w / 1000.0, 2),
-        "supply_voltage_v": _r(a.supply_voltage_v, 1),
+        "rated_power_kw": r(a.rated_power_w / 1000.0, 2),
+        "supply_voltage_v": r(a.supply_voltage_v, 1),
         "poles": a.poles,
         "rerated": a.rerated,
-        "speed_tolerance_rpm": _r(a.speed_band_rpm, 1),
-        "torque_capability": _r(a.torque_capability, 4),
+        "speed_tolerance_rpm": r(a.speed_band_rpm, 1),
+        "torque_capability": r(a.torque_capability, 4),
         "tolerance": {"standard": t.get("standard"), "basis": t.get("basis"),
                       "zone": t.get("zone"), "within": t.get("within"),
-                      "voltage_deviation": _r(t.get("voltage_deviation"), 4),
-                      "frequency_deviation": _r(t.get("frequency_deviation"), 4),
-                      "combined_variation": _r(t.get("combined_variation"), 4)},
-        "derating": {name: _r(value, 4) for name, value in a.factors.items()},
-        "combined_derating": _r(a.combined_factor, 4),
-        "service_factor_at_site": _r(a.service_factor_at_site, 2),
+                      "voltage_deviation": r(t.get("voltage_deviation"), 4),
+                      "frequency_deviation": r(t.get("frequency_deviation"), 4),
+                      "combined_variation": r(t.get("combined_variation"), 4)},
+        "derating": {name: r(value, 4) for name, value in a.factors.items()},
+        "combined_derating": r(a.combined_factor, 4),
+        "service_factor_at_site": r(a.service_factor_at_site, 2),
         "current_basis": a.current_basis,
-        "operating_current_a": _r(a.operating_current_a, 1),
-        "operating_power_factor": _r(a.operating_power_factor, 3),
-        "operating_efficiency": _r(a.operating_efficiency, 4),
-        "breakdown_torque_margin": _r(a.breakdown_margin, 2),
+        "operating_current_a": r(a.operating_current_a, 1),
+        "operating_power_factor": r(a.operating_power_factor, 3),
+        "operating_efficiency": r(a.operating_efficiency, 4),
+        "breakdown_torque_margin": r(a.breakdown_margin, 2),
         "operating_point_basis": a.operating_point_basis,
-        "rule_speed_rpm": _r(a.rule_speed_rpm, 1),
+        "rule_speed_rpm": r(a.rule_speed_rpm, 1),
         "star_delta_possible": a.star_delta_possible,
         "locked_rotor_current_a": None if lrc is None else {
-            "low": _r(lrc[0], 1), "high": None if lrc[1] == float("inf") else _r(lrc[1], 1),
+            "low": r(lrc[0], 1), "high": None if lrc[1] == float("inf") else r(lrc[1], 1),
             "basis": a.locked_rotor_basis},
-        "code_current_a": _r(a.code_current_a, 2),
+        "code_current_a": r(code_current, 2),
         "code_current_hp": a.code_current_hp,
-        "conductor_current_a": _r(None if a.code_current_a is None else 1.25 * a.code_current_a, 2),
-        "voltage_unbalance": _r(a.unbalance, 4),
+        "conductor_current_a": None if code_current is None else r(1.25 * code_current, 2),
+        "voltage_unbalance": r(a.unbalance, 4),
         "efficiency_class": a.efficiency_class,
-        "load_fraction": _r(a.load_fraction, 4),
-        "flow_ratio": _r(a.flow_ratio, 4),
-        "head_ratio": _r(a.head_ratio, 4),
+        "load_fraction": r(a.load_fraction, 4),
+        "flow_ratio": r(a.flow_ratio, 4),
+        "head_ratio": r(a.head_ratio, 4),
     }
     if a.machine.is_generator:
-        data["available_apparent_power_kva"] = _r(
-            None if a.available_apparent_power_va is None else a.available_apparent_power_va / 1000, 2)
+        data["available_apparent_power_kva"] = _kilo(a.available_apparent_power_va, 2)
     if explain:
         data["working"] = list(a.working)
     return data
