@@ -138,8 +138,9 @@ def estimate(power_w: float, voltage_v: float, frequency_hz: float, poles: int,
        empirical distribution), the parallel branch Z_in - R1 - jX1 has admittance G - jB; the
        rotor branch carries all of G, so R2/s solves G = r / (r^2 + X2^2) (larger root) and
        1/Xm = B - X2 / (r^2 + X2^2).
-    4. X1 + X2 is bisected until the breakdown torque is the design's typical multiple of the
-       rated torque (or as near as a circuit allows).
+    4. X1 + X2 is solved for (secant steps on its logarithm, kept in a bracket) until the
+       breakdown torque is the design's typical multiple of the rated torque (or as near as a
+       circuit allows).
 
     References
     ----------
@@ -203,32 +204,36 @@ def estimate(power_w: float, voltage_v: float, frequency_hz: float, poles: int,
         v_th, r_th, x_th = _thevenin(r1, x1, xm, v_ph)
         return math.log(_peak(v_th, r_th, x_th + x2, w_sync)[0] / target), fit
 
-    # T_max falls as the leakage grows: bracket the root, then regula falsi with a bisection
-    # step whenever the secant leaves the bracket or the circuit does not fit.
-    lo, hi = 0.0, abs(z_in)
-    f_lo, best = excess(1e-6 * hi)
-    f_hi = None
-    x = 0.15 * hi  # a typical locked-rotor reactance, per unit of |Z_in|
-    for _ in range(60):
-        f_x, fit = excess(x)
-        if f_x is None:
-            hi, f_hi = x, None
+    # T_max falls as the leakage grows, nearly as 1 / X: in u = log X the excess is close to a
+    # straight line, so secant steps from a first step of slope -1 converge in a few trials;
+    # a step that leaves the bracket, or lands where no circuit fits, is bisected instead.
+    lo, hi = math.log(1e-6 * abs(z_in)), math.log(abs(z_in))
+    f_lo, best = excess(math.exp(lo))
+    u = math.log(0.15 * abs(z_in))  # a typical locked-rotor reactance, per unit of |Z_in|
+    previous = None
+    for _ in range(80):
+        f_u, fit = excess(math.exp(u))
+        if f_u is None:
+            hi = u
         else:
             best = fit
-            if abs(f_x) < 1e-7:
+            if abs(f_u) < 1e-7:
                 break
-            if f_x > 0.0:
-                lo, f_lo = x, f_x
+            if f_u > 0.0:
+                lo = u
             else:
-                hi, f_hi = x, f_x
-        if hi - lo < 1e-9 * abs(z_in):
+                hi = u
+        if hi - lo < 1e-10:
             break
-        if f_lo is not None and f_hi is not None and f_lo > 0.0 and f_hi < 0.0:
-            x = (lo * f_hi - hi * f_lo) / (f_hi - f_lo)
-            if not lo < x < hi:
-                x = 0.5 * (lo + hi)
+        if f_u is None:
+            step = 0.5 * (lo + hi)
+        elif previous is not None and previous[1] != f_u:
+            step = u - f_u * (u - previous[0]) / (f_u - previous[1])
         else:
-            x = 0.5 * (lo + hi)
+            step = u + f_u
+        if f_u is not None:
+            previous = (u, f_u)
+        u = step if lo < step < hi else 0.5 * (lo + hi)
     if best is None:
         raise DomainError("the plate figures do not fit an induction-motor circuit")
     x1, x2, r2, xm = best
