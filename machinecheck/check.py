@@ -344,14 +344,11 @@ def _motor_speed_and_load(a: Assessment, w) -> None:
     if load is not None:
         t0 = load.torque_nm if load.torque_nm is not None else speed_physics.shaft_torque(
             load.power_w, n_ref)
-
-        def load_torque(n):
-            return t0 * loads.torque_ratio(load.type, n / n_ref)
+        load_torque = loads.torque_curve(load.type, t0, n_ref)
     elif a.available_power_w:
-        available = a.available_power_w
-
-        def load_torque(n):
-            return available / (n * math.pi / 30.0)
+        # no load given: the motor is taken to deliver its available output at any speed
+        load_torque = loads.torque_curve("constant-power", a.available_power_w * 30.0 / math.pi,
+                                         1.0)
     else:
         load_torque = None
 

@@ -1,5 +1,6 @@
 import pytest
 
+from machinecheck.errors import DomainError
 from machinecheck.physics import efficiency, loads, nec, starting
 
 
@@ -113,3 +114,19 @@ def test_constant_torque_power_follows_speed():
     # practice notes Q16: constant-torque loads, power ~ speed.
     assert loads.power_ratio("constant-torque", 1.2) == pytest.approx(1.2)
     assert loads.power_ratio("constant-power", 0.8) == pytest.approx(1.0)
+
+
+@pytest.mark.parametrize("load_type", loads.LOAD_TYPES)
+def test_torque_curve_follows_the_torque_ratio(load_type):
+    # the solvers' curve is the same law as torque_ratio (affinity laws, standards.md 6.3)
+    curve = loads.torque_curve(load_type, 200.0, 1480.0)
+    for n in (100.0, 740.0, 1480.0, 1600.0, 1800.0):
+        assert curve(n) == pytest.approx(200.0 * loads.torque_ratio(load_type, n / 1480.0))
+
+
+def test_torque_curve_at_standstill():
+    assert loads.torque_curve("centrifugal", 200.0, 1480.0)(0.0) == 0.0
+    assert loads.torque_curve("constant-torque", 200.0, 1480.0)(0.0) == 200.0
+    assert loads.torque_curve("constant-power", 200.0, 1480.0)(0.0) == float("inf")
+    with pytest.raises(DomainError):
+        loads.torque_curve("pulsating", 200.0, 1480.0)

@@ -2,9 +2,20 @@
 
 from __future__ import annotations
 
+import math
+
 from ..errors import DomainError
 
 LOAD_TYPES = ("centrifugal", "constant-torque", "constant-power")
+#: Load torque goes as (n / n0) ** exponent.
+TORQUE_EXPONENT = {"centrifugal": 2, "constant-torque": 0, "constant-power": -1}
+
+
+def _exponent(load_type: str) -> int:
+    exponent = TORQUE_EXPONENT.get(load_type)
+    if exponent is None:
+        raise DomainError(f"load type must be one of {', '.join(LOAD_TYPES)}, got {load_type!r}")
+    return exponent
 
 
 def torque_ratio(load_type: str, speed_ratio: float) -> float:
@@ -17,15 +28,27 @@ def torque_ratio(load_type: str, speed_ratio: float) -> float:
     .. [1] Pump and fan affinity laws (torque ~ n^2), e.g. Karassik et al., *Pump Handbook*,
        ch. 2; constant-torque and constant-power loads: common practice.
     """
+    exponent = _exponent(load_type)
     if not speed_ratio > 0:
         raise DomainError(f"speed ratio must be positive, got {speed_ratio!r}")
-    if load_type == "centrifugal":
-        return speed_ratio ** 2
-    if load_type == "constant-torque":
-        return 1.0
-    if load_type == "constant-power":
-        return 1.0 / speed_ratio
-    raise DomainError(f"load type must be one of {', '.join(LOAD_TYPES)}, got {load_type!r}")
+    return float(speed_ratio ** exponent)
+
+
+def torque_curve(load_type: str, torque_nm: float, reference_speed_rpm: float):
+    """The load's torque as a function of shaft speed: n [rpm] -> T [N m].
+
+    ``torque_nm`` is the torque at ``reference_speed_rpm``; the curve follows
+    :func:`torque_ratio` (a solver's hot loop calls it, so it is one multiplication). A
+    constant-power load asks infinite torque at standstill.
+    """
+    exponent = _exponent(load_type)
+    if exponent == 2:
+        scale = torque_nm / (reference_speed_rpm * reference_speed_rpm)
+        return lambda n: scale * n * n
+    if exponent == 0:
+        return lambda n: torque_nm
+    power = torque_nm * reference_speed_rpm
+    return lambda n: power / n if n > 0 else math.inf
 
 
 def power_ratio(load_type: str, speed_ratio: float) -> float:
