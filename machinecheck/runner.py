@@ -24,7 +24,7 @@ from .check import VERDICTS
 from .report import renderer
 
 #: Machines per chunk of work.
-CHUNK_MACHINES = 400
+CHUNK_MACHINES = 100
 #: Fewer pairs than this are checked in the calling process (workers cost ~50 ms to start).
 PARALLEL_PAIRS = 6000
 
