@@ -298,7 +298,8 @@ def rotational_loss(c: Circuit, speed_rpm: float) -> float:
 
 
 def operating_point(c: Circuit, voltage_v: float, frequency_hz: float, slip: float, *,
-                    rotational_loss_w: float | None = None) -> OperatingPoint:
+                    rotational_loss_w: float | None = None,
+                    breakdown_point: tuple[float, float] | None = None) -> OperatingPoint:
     """The circuit's steady state at a given slip.
 
     I1 = V_ph / Z_in; P_in = 3 V_ph I1 cos(phi); P_ag = P_in - 3 I1^2 R1;
@@ -312,6 +313,7 @@ def operating_point(c: Circuit, voltage_v: float, frequency_hz: float, slip: flo
     slip : per-unit slip, 0 < s <= 1 [-]
     rotational_loss_w : rotational loss at this speed [W]; by default scaled from the rated
         speed by :func:`rotational_loss`
+    breakdown_point : :func:`breakdown` on this supply, when the caller has it already
 
     Returns
     -------
@@ -341,7 +343,7 @@ def operating_point(c: Circuit, voltage_v: float, frequency_hz: float, slip: flo
     p_out = p_conv - rotational_loss_w
     w_sync = n_s * math.pi / 30.0
     w_m = speed * math.pi / 30.0
-    t_max, s_max = breakdown(c, voltage_v, frequency_hz)
+    t_max, s_max = breakdown_point or breakdown(c, voltage_v, frequency_hz)
     return OperatingPoint(
         slip=slip, speed_rpm=speed, current_a=i1, power_factor=pf, input_power_w=p_in,
         air_gap_power_w=p_ag, converted_power_w=p_conv, output_power_w=p_out,
@@ -387,15 +389,16 @@ def solve(c: Circuit, voltage_v: float, frequency_hz: float, load_torque) -> Ope
         # rotational torque P_rot (n / n_rated)^2 / w_m
         return t_ind - load_torque(n) - p_rot * n / (n_rot * n_rot) * (30.0 / math.pi)
 
-    s_max = r2 / math.sqrt(r_th * r_th + x2sq)
-    hi = min(s_max, 1.0)
+    t_max, root = _peak(v_th, r_th, x_total, w_sync)
+    peak = (t_max, r2 / root)
+    hi = min(peak[1], 1.0)
     f_hi = excess(hi)
     if f_hi < 0.0:
         return None
     lo = 1e-6
     f_lo = excess(lo)
     if f_lo >= 0.0:
-        return operating_point(c, voltage_v, frequency_hz, lo)
+        return operating_point(c, voltage_v, frequency_hz, lo, breakdown_point=peak)
     # narrow the bracket around the small-slip estimate s ~ T R2 / k (T_ind ~ k s / R2)
     guess = -f_lo * r2 / k
     tolerance = -1e-8 * f_lo  # of the torque asked for: speed exact to ~1e-8 of the slip
@@ -425,4 +428,4 @@ def solve(c: Circuit, voltage_v: float, frequency_hz: float, load_torque) -> Ope
             if side == 1:
                 f_lo *= 0.5
             side = 1
-    return operating_point(c, voltage_v, frequency_hz, s)
+    return operating_point(c, voltage_v, frequency_hz, s, breakdown_point=peak)
