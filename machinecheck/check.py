@@ -9,6 +9,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass, field
+from functools import lru_cache
 
 from .errors import DomainError
 from .model import Connection, Machine, Rating, Site
@@ -237,26 +238,46 @@ def _volts(c: Connection) -> str:
 
 def _tolerance(a: Assessment, w) -> None:
     site, c = a.site, a.connection
-    generator = a.machine.is_generator
-    if a.rerated:
-        dv, df = a.flux_ratio - 1.0, 0.0
+    a.tolerance = tolerance_figures(
+        site.standard, a.machine.is_generator, a.rerated, a.supply_voltage_v, site.voltage_v,
+        site.voltage_range_v, c.voltage_min_v, c.voltage_max_v, a.frequency_ratio, a.flux_ratio)
+    if w is not None:
+        result = a.tolerance
+        df = 0.0 if a.rerated else a.frequency_ratio - 1.0
+        where = "zone " + str(result.get("zone")) if result.get("zone") is not None else (
+            "within" if result["within"] else "outside")
+        w.append(f"tolerance ({site.standard}, {result['basis']} point): dV = "
+                 f"{100 * result['voltage_deviation']:+.1f} %, df = {100 * df:+.1f} % -> {where}")
+
+
+@lru_cache(maxsize=8192)  # a fleet meets few distinct supply and winding voltages
+def tolerance_figures(standard: str, generator: bool, rerated: bool, supply_voltage_v: float,
+                      site_voltage_v: float, site_voltage_range_v, rated_min_v: float,
+                      rated_max_v: float, frequency_ratio: float, flux_ratio: float) -> dict:
+    """Where the supply sits in the tolerance of ``standard``; the dict is shared, read-only.
+
+    Keys: standard, basis ("rated", or "re-rated" when judged as flux at the new frequency),
+    voltage_deviation, frequency_deviation, within, zone (IEC) or combined_variation (NEMA),
+    and worst_voltage_deviation over the site's voltage range.
+    """
+    if rerated:
+        dv, df = flux_ratio - 1.0, 0.0
         basis = "re-rated"
     else:
-        dv = tolerance.voltage_deviation(a.supply_voltage_v, c.voltage_min_v, c.voltage_max_v)
-        df = a.frequency_ratio - 1.0
+        dv = tolerance.voltage_deviation(supply_voltage_v, rated_min_v, rated_max_v)
+        df = frequency_ratio - 1.0
         basis = "rated"
     points = [(dv, df)]
-    if site.voltage_range_v is not None and not a.rerated:
-        scale = a.supply_voltage_v / site.voltage_v
-        for end in site.voltage_range_v:
-            points.append((tolerance.voltage_deviation(end * scale, c.voltage_min_v,
-                                                       c.voltage_max_v), df))
-    elif site.voltage_range_v is not None:
-        for end in site.voltage_range_v:
-            points.append((a.flux_ratio * end / site.voltage_v - 1.0, df))
-    result = {"standard": site.standard, "basis": basis, "voltage_deviation": dv,
-              "frequency_deviation": a.frequency_ratio - 1.0}
-    if site.standard == "NEMA" and not generator:
+    if site_voltage_range_v is not None and not rerated:
+        scale = supply_voltage_v / site_voltage_v
+        for end in site_voltage_range_v:
+            points.append((tolerance.voltage_deviation(end * scale, rated_min_v, rated_max_v), df))
+    elif site_voltage_range_v is not None:
+        for end in site_voltage_range_v:
+            points.append((flux_ratio * end / site_voltage_v - 1.0, df))
+    result = {"standard": standard, "basis": basis, "voltage_deviation": dv,
+              "frequency_deviation": frequency_ratio - 1.0}
+    if standard == "NEMA" and not generator:
         checks = [tolerance.nema_variation(*p) for p in points]
         result["within"] = all(ok for ok, _ in checks)
         result["combined_variation"] = max(comb for _, comb in checks)
@@ -270,12 +291,7 @@ def _tolerance(a: Assessment, w) -> None:
         result["within"] = worst_zone is not None
         worst = points[zones.index(worst_zone)]
     result["worst_voltage_deviation"] = worst[0]
-    a.tolerance = result
-    if w is not None:
-        where = "zone " + str(result.get("zone")) if result.get("zone") is not None else (
-            "within" if result["within"] else "outside")
-        w.append(f"tolerance ({site.standard}, {basis} point): dV = {100 * dv:+.1f} %, "
-                 f"df = {100 * df:+.1f} % -> {where}")
+    return result
 
 
 def _factors(a: Assessment, w) -> None:

@@ -55,7 +55,7 @@ class Circuit:
     current_fitted: bool = True
 
 
-@dataclass(frozen=True, slots=True)
+@dataclass(slots=True)  # not frozen: made once a pair, and a frozen init costs three times as much
 class OperatingPoint:
     """Steady state of the circuit at one slip; powers three-phase [W], torques [N m]."""
 
@@ -208,7 +208,7 @@ def estimate(power_w: float, voltage_v: float, frequency_hz: float, poles: int,
     # straight line, so secant steps from a first step of slope -1 converge in a few trials;
     # a step that leaves the bracket, or lands where no circuit fits, is bisected instead.
     lo, hi = math.log(1e-6 * abs(z_in)), math.log(abs(z_in))
-    f_lo, best = excess(math.exp(lo))
+    best = None
     u = math.log(0.15 * abs(z_in))  # a typical locked-rotor reactance, per unit of |Z_in|
     previous = None
     for _ in range(80):
@@ -234,6 +234,8 @@ def estimate(power_w: float, voltage_v: float, frequency_hz: float, poles: int,
         if f_u is not None:
             previous = (u, f_u)
         u = step if lo < step < hi else 0.5 * (lo + hi)
+    if best is None:  # no trial fitted: the least leakage is the last resort
+        best = excess(1e-6 * abs(z_in))[1]
     if best is None:
         raise DomainError("the plate figures do not fit an induction-motor circuit")
     x1, x2, r2, xm = best

@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+from ..check import RERATING_RANGE
+
 #: Flux-ratio thresholds (per unit) for a re-rated machine.
 OVERFLUX_WARN, OVERFLUX_LIMIT = 1.05, 1.10
 UNDERFLUX_WARN, UNDERFLUX_LIMIT = 0.95, 0.80
@@ -11,8 +13,6 @@ def check(a) -> None:
     m, site, r = a.machine, a.site, a.rating
     if not a.phases_ok:
         return
-    from ..check import RERATING_RANGE
-
     low, high = RERATING_RANGE
     if a.rerated:
         if not low <= a.frequency_ratio <= high:
