@@ -206,7 +206,7 @@ def _select(items, wanted, what):
 
 
 def write_output(text, path: str, inputs) -> None:
-    """Write ``text`` (a string, or pieces of one) to ``path`` atomically.
+    """Write ``text`` (a string, or pieces as strings or UTF-8 bytes) to ``path`` atomically.
 
     Never onto an input file; nothing is left behind on error or Ctrl-C.
     """
@@ -225,9 +225,9 @@ def write_output(text, path: str, inputs) -> None:
             raise InputError("refusing to overwrite an input file with the output", file=path)
     handle, temporary = tempfile.mkstemp(prefix=".machinecheck-", suffix=".tmp", dir=folder)
     try:
-        with os.fdopen(handle, "w", encoding="utf-8", newline="") as stream:
+        with os.fdopen(handle, "wb") as stream:
             for piece in [text] if isinstance(text, str) else text:
-                stream.write(piece)
+                stream.write(piece if isinstance(piece, bytes) else piece.encode("utf-8"))
         if os.path.exists(target):
             os.chmod(temporary, os.stat(target).st_mode & 0o7777)
         else:

@@ -107,7 +107,8 @@ def _checked(machines, sites, fmt, explain, problems_only):
     from .check import assess_all
 
     tally, shown = Tally.of(assess_all(machines, sites, explain=explain), problems_only)
-    return renderer(fmt).chunk(shown, explain=explain), tally.counts, tally.shown
+    # bytes: a worker's text crosses the pipe and reaches the file without re-encoding
+    return renderer(fmt).chunk_bytes(shown, explain=explain), tally.counts, tally.shown
 
 
 def workers_available() -> int:
@@ -151,8 +152,9 @@ class _Workers:
 
 
 def _emit(module, results, sizes, tally: Tally, progress, on_result=None):
-    """Yield the document from ordered chunk results; ``tally`` is filled as they come."""
-    yield module.head()
+    """Yield the document, UTF-8, from ordered chunk results; ``tally`` is filled as they come."""
+    yield module.head().encode()
+    separator = module.SEPARATOR.encode()
     first = True
     for size, result in zip(sizes, results):
         if on_result is not None:
@@ -163,18 +165,18 @@ def _emit(module, results, sizes, tally: Tally, progress, on_result=None):
             progress(size)
         if not text:
             continue
-        if module.SEPARATOR:
-            yield "\n" if first else module.SEPARATOR
+        if separator:
+            yield b"\n" if first else separator
         first = False
         yield text
-    if module.SEPARATOR and not first:
-        yield "\n"
-    yield module.tail()
+    if separator and not first:
+        yield b"\n"
+    yield module.tail().encode()
 
 
 def stream(machines, sites, fmt, *, explain=False, problems_only=False, tally: Tally,
            progress=None, workers: int | None = None):
-    """Yield the report text in pieces; ``tally`` is filled as the pieces are made."""
+    """Yield the report in pieces of UTF-8; ``tally`` is filled as the pieces are made."""
     global _JOB
     bounds = [(i, min(i + CHUNK_MACHINES, len(machines)))
               for i in range(0, len(machines), CHUNK_MACHINES)]

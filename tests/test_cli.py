@@ -257,8 +257,8 @@ def test_parallel_stream_matches_the_serial_one(monkeypatch):
         outputs = []
         for workers in (1, 2):
             tally = runner.Tally()
-            text = "".join(runner.stream(machines, sites, fmt, tally=tally, workers=workers,
-                                         problems_only=fmt == "csv"))
+            text = b"".join(runner.stream(machines, sites, fmt, tally=tally, workers=workers,
+                                          problems_only=fmt == "csv"))
             outputs.append((text, tally.counts, tally.shown))
         assert outputs[0] == outputs[1]
     assert outputs[0][1]["incompatible"] > 0

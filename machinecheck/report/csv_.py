@@ -43,6 +43,10 @@ def chunk(assessments, **_) -> str:
     return buffer.getvalue()
 
 
+
+def chunk_bytes(assessments, **options) -> bytes:
+    return chunk(assessments, **options).encode()
+
 def join(chunks) -> str:
     return "".join(chunks)
 

@@ -23,10 +23,14 @@ def head(**_) -> str:
             f'"caution": {orjson.dumps(CAUTION).decode()}, "results": [')
 
 
-def chunk(assessments, *, explain: bool = False, **_) -> str:
-    """The results of some pairs, one per line, without a trailing separator."""
+def chunk_bytes(assessments, *, explain: bool = False, **_) -> bytes:
+    """The results of some pairs as UTF-8, one per line, without a trailing separator."""
     dumps = orjson.dumps
-    return _SEPARATOR.join([dumps(result_dict(a, explain=explain)) for a in assessments]).decode()
+    return _SEPARATOR.join([dumps(result_dict(a, explain=explain)) for a in assessments])
+
+
+def chunk(assessments, *, explain: bool = False, **_) -> str:
+    return chunk_bytes(assessments, explain=explain).decode()
 
 
 def join(chunks) -> str:
