@@ -189,8 +189,8 @@ def assess(machine: Machine, site: Site, *, explain: bool = False) -> Assessment
 
     for rule in _rules():
         rule(a)
-    worst = max((SEVERITIES.index(f.severity) for f in a.findings), default=0)
-    a.verdict = _VERDICT_OF[SEVERITIES[worst]]
+    found = {f.severity for f in a.findings}
+    a.verdict = next((_VERDICT_OF[s] for s in reversed(SEVERITIES) if s in found), "compatible")
     return a
 
 

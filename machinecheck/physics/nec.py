@@ -53,6 +53,10 @@ SYNC_PF_MULTIPLIER = {1.0: 1.0, 0.9: 1.1, 0.8: 1.25}
 HP_ROUNDING_SLACK = 0.01
 
 
+_SIZES_1PH = sorted(_TABLE_1PH)
+_SIZES_3PH = sorted(_TABLE_3PH)
+
+
 def standard_hp(power_hp: float, phases: int = 3) -> float:
     """The table horsepower to use: the next standard size at or above the rating.
 
@@ -64,7 +68,7 @@ def standard_hp(power_hp: float, phases: int = 3) -> float:
     .. [1] NEC 430.6(A)(1) and 430.7(A)(7); rounding up is field practice (practice notes
        Q11: 5 kW -> 6.7 hp -> 7.5 hp); the 1 % slack is common practice, no published source.
     """
-    sizes = sorted(_TABLE_1PH if phases == 1 else _TABLE_3PH)
+    sizes = _SIZES_1PH if phases == 1 else _SIZES_3PH
     if not power_hp > 0:
         raise DomainError(f"power must be positive, got {power_hp!r} hp")
     i = bisect.bisect_left(sizes, power_hp / (1.0 + HP_ROUNDING_SLACK))
