@@ -23,6 +23,11 @@ from dataclasses import dataclass, field
 from .check import VERDICTS
 from .report import renderer
 
+try:
+    import rtoml
+except ImportError:  # pragma: no cover - a platform without its wheel: tomllib alone
+    rtoml = None
+
 #: Machines per chunk of work.
 CHUNK_MACHINES = 100
 #: Fewer pairs than this are checked in the calling process (workers cost ~50 ms to start).
@@ -81,16 +86,15 @@ def _work(bounds):
 
 def _work_text(job):
     """Parse, validate and check one piece of a catalog's text; None when it needs the whole."""
-    from .catalog import catalog_from_data, tomllib
+    from .catalog import catalog_from_data
     from .errors import MachinecheckError
 
     plans, sites, fmt, explain, problems_only = _TEXT_JOB
     index, start, stop = job
     plan = plans[index]
     piece = plan.text[start:stop]
-    try:
-        data = tomllib.loads(piece)
-    except tomllib.TOMLDecodeError:
+    data = parse_piece(piece)
+    if data is None:
         return None
     allowed = ("catalog", "machine") if start == 0 else ("machine",)
     if not isinstance(data.get("machine"), list) or any(key not in allowed for key in data):
@@ -101,6 +105,31 @@ def _work_text(job):
         return None
     return (*_checked(machines, sites, fmt, explain, problems_only),
             [m.id for m in machines])
+
+
+#: What TOML 1.1 reads and TOML 1.0 (tomllib) does not: inline tables (1.1 lets them span
+#: lines and end in a comma), the \e and \x escapes, times without seconds; and a BOM.
+_BEYOND_TOML_1_0 = re.compile(r"[{\ufeff]|\\[ex]|(?<![:\d])\d\d:\d\d(?![:\d])")
+
+
+def parse_piece(text: str) -> dict | None:
+    """A piece of catalog as tomllib reads it, or None where tomllib finds an error.
+
+    rtoml (TOML 1.1) parses about three times faster than tomllib (TOML 1.0), and the two
+    agree on TOML 1.0 documents; a piece showing anything only 1.1 reads goes to tomllib, so a
+    catalog is accepted here exactly when the whole load would accept it.
+    """
+    from .catalog import tomllib
+
+    if rtoml is not None and not _BEYOND_TOML_1_0.search(text):
+        try:
+            return rtoml.loads(text)
+        except Exception:  # any complaint: the whole load names it in tomllib's words
+            return None
+    try:
+        return tomllib.loads(text)
+    except tomllib.TOMLDecodeError:
+        return None
 
 
 def _checked(machines, sites, fmt, explain, problems_only):

@@ -1,10 +1,14 @@
 """The fleet runner: pieces checked by workers give exactly the document one process writes,
 and anything a piece cannot judge alone is reported as the whole load reports it."""
 
+import importlib.util
+import os
+
 import pytest
 from click.testing import CliRunner
 
 from machinecheck import runner
+from machinecheck.catalog import tomllib
 from machinecheck.cli import _demo_path, main
 
 ENV = {"NO_COLOR": "1", "COLUMNS": "120"}
@@ -43,6 +47,31 @@ def test_text_pieces_give_the_serial_document(small_pieces, tmp_path, fmt, monke
     assert used == [1]  # the pieces path was taken
 
 
+_INLINE_LOAD = """
+[[machine]]
+id = "INLINE-1"
+load = {type = "centrifugal", power = "9 kW"}
+  [[machine.rating]]
+  frequency = "50 Hz"
+  voltage = "400 V"
+  power = "11 kW"
+  speed = "1460 rpm"
+  current = "21 A"
+  power_factor = 0.84
+"""
+
+
+def test_a_piece_with_an_inline_table_gives_the_serial_document(small_pieces, tmp_path):
+    catalog = tmp_path / "fleet.toml"
+    catalog.write_text(_demo_text() + _INLINE_LOAD, encoding="utf-8")
+    out = tmp_path / "out.json"
+    parallel = run("check", str(catalog), "--format", "json", "-o", str(out))
+    serial = run("check", str(catalog), "--format", "json")
+    assert parallel.exit_code == serial.exit_code == 1
+    assert "INLINE-1" in serial.output
+    assert out.read_text(encoding="utf-8") == serial.output
+
+
 def _with_machine(text, index, replace_from, replace_to):
     parts = text.split("[[machine]]")
     parts[index + 1] = parts[index + 1].replace(replace_from, replace_to, 1)
@@ -55,6 +84,7 @@ def _with_machine(text, index, replace_from, replace_to):
     (lambda t: _with_machine(t, 9, 'id = "K-111"', 'id = "P-101"'), "duplicate id"),
     (lambda t: _with_machine(t, 5, 'id = "H-610"', 'id = "H-610\n'), "TOML syntax error"),
     (lambda t: t + '\n[[site]]\nid = "x"\n', "unknown key 'site'"),
+    (lambda t: t + _INLINE_LOAD.replace('kW"}', 'kW",}'), "TOML syntax error"),  # TOML 1.1 only
 ])
 def test_a_problem_in_one_piece_is_reported_as_the_whole_load_reports_it(
         small_pieces, tmp_path, change, needle):
@@ -104,3 +134,73 @@ def test_a_dead_worker_ends_the_run_cleanly(small_pieces, tmp_path, monkeypatch,
     assert "worker process ended unexpectedly" in result.output
     assert "Traceback" not in result.output
     assert not out.exists()
+
+
+# ----------------------------------------------------------------------------- parse_piece
+
+def _tomllib(text):
+    try:
+        return tomllib.loads(text)
+    except tomllib.TOMLDecodeError:
+        return None
+
+
+def _same(a, b):
+    return a == b or repr(a) == repr(b)  # repr: nan is not equal to itself
+
+
+def _corpus_and_demo():
+    folder = os.path.join(os.path.dirname(__file__), "corpus")
+    texts = {}
+    for name in sorted(os.listdir(folder)):
+        with open(os.path.join(folder, name), encoding="utf-8", errors="replace") as handle:
+            texts[name] = handle.read()
+    for name in ("fleet.toml", "sites.toml"):
+        with open(_demo_path(name), encoding="utf-8") as handle:
+            texts[name] = handle.read()
+    return texts
+
+
+def _generated_catalog(count):
+    path = os.path.join(os.path.dirname(__file__), "..", "benchmarks", "generate.py")
+    spec = importlib.util.spec_from_file_location("generate", path)
+    module = importlib.util.module_from_spec(spec)
+    spec.loader.exec_module(module)
+    return module.catalog(count)
+
+
+def test_pieces_read_as_tomllib_reads_them():
+    # the fast reader (rtoml) and tomllib must agree on every file we ship or test with
+    texts = _corpus_and_demo()
+    texts["generated"] = _generated_catalog(60)
+    for name, text in texts.items():
+        assert _same(runner.parse_piece(text), _tomllib(text)), name
+
+
+@pytest.mark.parametrize("text", [
+    # TOML 1.1 reads these, TOML 1.0 (tomllib) refuses them: a piece must refuse them too
+    'a = {b = 1,}\n', 'a = {b = 1,\n c = 2}\n', 'a = "\\e"\n', 'a = "\\x41"\n', 'a = 07:32\n',
+    'a = 1979-05-27T07:32\n', '\ufeffa = 1\n',
+    # and TOML 1.0 errors both refuse
+    'a = 1\na = 2\n', '[t]\n[t]\n', 'a = "\\q"\n', 'a = 01\n', 'a = 2021-02-30\n', 'a b = 1\n',
+    'a = [1]\n[[a]]\n', 'a = 1 b = 2\n', '[[machine]\n', 'id = "x\n',
+])
+def test_what_tomllib_refuses_a_piece_refuses(text):
+    assert _tomllib(text) is None
+    assert runner.parse_piece(text) is None
+
+
+@pytest.mark.parametrize("text", [
+    'a = {b = 1, c = "x"}\n', 'a = 1979-05-27T07:32:00Z\n', 'a = 07:32:00.5\n', 'a = "12:30 shift"\n',
+    'a = "back\\\\slash"\n', "a = 'C:\\x\\e'\n", 'a = nan\n', 'a = 1e1_0\n', 'a = [\n1,\n2,\n]\n',
+])
+def test_what_tomllib_reads_a_piece_reads_alike(text):
+    assert _tomllib(text) is not None
+    assert _same(runner.parse_piece(text), _tomllib(text))
+
+
+def test_pieces_without_the_fast_reader(monkeypatch):
+    monkeypatch.setattr(runner, "rtoml", None)
+    text = _generated_catalog(5)
+    assert runner.parse_piece(text) == _tomllib(text)
+    assert runner.parse_piece("a = 1\na = 2\n") is None
