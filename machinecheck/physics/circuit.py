@@ -357,8 +357,10 @@ def operating_point(c: Circuit, voltage_v: float, frequency_hz: float, slip: flo
 def solve(c: Circuit, voltage_v: float, frequency_hz: float, load_torque) -> OperatingPoint | None:
     """Operating point where the shaft torque meets the load on the stable branch.
 
-    Solves T_ind(s) = T_load(n) + P_rot(n) / w_m for 0 < s <= s_max by bracketed regula falsi
-    (Illinois), using T_ind = 3 V_th^2 (R2/s) / (w_sync ((R_th + R2/s)^2 + (X_th + X2)^2)).
+    Solves T_ind(s) = T_load(n) + P_rot(n) / w_m for 0 < s <= s_max, using
+    T_ind = 3 V_th^2 (R2/s) / (w_sync ((R_th + R2/s)^2 + (X_th + X2)^2)): by iterating the slip
+    at which T_ind meets the torque asked at the last slip (inverting T_ind exactly), with
+    secant steps, and by bracketed regula falsi (Illinois) where that does not settle.
 
     Parameters
     ----------
@@ -384,12 +386,23 @@ def solve(c: Circuit, voltage_v: float, frequency_hz: float, load_torque) -> Ope
     r2 = c.r2_ohm
     p_rot, n_rot = c.rotational_loss_w, c.rated_speed_rpm
 
+    rotational = p_rot / (n_rot * n_rot) * (30.0 / math.pi)
+
+    def asked(s):
+        """Load torque plus rotational torque P_rot (n / n_rated)^2 / w_m at slip s."""
+        n = (1.0 - s) * n_s
+        return load_torque(n) + rotational * n
+
     def excess(s):
         r = r2 / s
-        n = (1.0 - s) * n_s
-        t_ind = k * r / ((r_th + r) ** 2 + x2sq)
-        # rotational torque P_rot (n / n_rated)^2 / w_m
-        return t_ind - load_torque(n) - p_rot * n / (n_rot * n_rot) * (30.0 / math.pi)
+        return k * r / ((r_th + r) ** 2 + x2sq) - asked(s)
+
+    def slip_for(t):
+        """Slip on the stable branch where T_ind = t: the larger root r = R2/s of
+        t r^2 + (2 t R_th - k) r + t (R_th^2 + X^2) = 0; None above the breakdown torque."""
+        b = k - 2.0 * t * r_th
+        disc = b * b - 4.0 * t * t * (r_th * r_th + x2sq)
+        return 2.0 * t * r2 / (b + math.sqrt(disc)) if t > 0.0 and disc >= 0.0 else None
 
     t_max, root = _peak(v_th, r_th, x_total, w_sync)
     peak = (t_max, r2 / root)
@@ -398,9 +411,29 @@ def solve(c: Circuit, voltage_v: float, frequency_hz: float, load_torque) -> Ope
     if f_hi < 0.0:
         return None
     lo = 1e-6
-    f_lo = excess(lo)
+    asked_lo = asked(lo)
+    f_lo = k * (r2 / lo) / ((r_th + r2 / lo) ** 2 + x2sq) - asked_lo
     if f_lo >= 0.0:
         return operating_point(c, voltage_v, frequency_hz, lo, breakdown_point=peak)
+    # The load torque changes little with slip near synchronous speed, so s = slip_for(asked(s))
+    # is a strong contraction (the answer is ~30x nearer than s); secant steps on its residual
+    # settle it in a few loads, to 1e-8 of the slip as the bracketed method below.
+    s, previous = slip_for(asked_lo), None
+    for _ in range(12):
+        if s is None or not lo < s < hi:
+            break
+        target = slip_for(asked(s))
+        if target is None:
+            break
+        residual = target - s
+        if abs(residual) <= 1e-8 * s:
+            return operating_point(c, voltage_v, frequency_hz, target, breakdown_point=peak)
+        step = target
+        if previous is not None and residual != previous[1]:
+            step = s - residual * (s - previous[0]) / (residual - previous[1])
+        previous = (s, residual)
+        s = step
+    # otherwise (a load that climbs steeply with slip): bracketed regula falsi
     # narrow the bracket around the small-slip estimate s ~ T R2 / k (T_ind ~ k s / R2)
     guess = -f_lo * r2 / k
     tolerance = -1e-8 * f_lo  # of the torque asked for: speed exact to ~1e-8 of the slip
