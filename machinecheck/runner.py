@@ -108,8 +108,16 @@ def _work_text(job):
 
 
 #: What TOML 1.1 reads and TOML 1.0 (tomllib) does not: inline tables (1.1 lets them span
-#: lines and end in a comma), the \e and \x escapes, times without seconds; and a BOM.
-_BEYOND_TOML_1_0 = re.compile(r"[{\ufeff]|\\[ex]|(?<![:\d])\d\d:\d\d(?![:\d])")
+#: lines and end in a comma), a BOM, the \e and \x escapes, times without seconds.
+_ESCAPE_1_1 = re.compile(r"\\[ex]")
+_SHORT_TIME = re.compile(r"(?<![:\d])\d\d:\d\d(?![:\d])")
+
+
+def _beyond_toml_1_0(text: str) -> bool:
+    # substring tests first: the regular expressions run only on texts that could match
+    return ("{" in text or "\ufeff" in text
+            or ("\\" in text and _ESCAPE_1_1.search(text) is not None)
+            or (":" in text and _SHORT_TIME.search(text) is not None))
 
 
 def parse_piece(text: str) -> dict | None:
@@ -121,7 +129,7 @@ def parse_piece(text: str) -> dict | None:
     """
     from .catalog import tomllib
 
-    if rtoml is not None and not _BEYOND_TOML_1_0.search(text):
+    if rtoml is not None and not _beyond_toml_1_0(text):
         try:
             return rtoml.loads(text)
         except Exception:  # any complaint: the whole load names it in tomllib's words
