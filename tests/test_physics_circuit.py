@@ -63,6 +63,32 @@ def test_stall_when_the_load_exceeds_breakdown():
     assert circuit.solve(CHAPMAN_7_5, 460.0, 60.0, lambda n: 0.9 * t_max) is not None
 
 
+def _balance_slip(c, load_torque):
+    """The stable running slip by plain bisection of shaft torque minus load torque."""
+    def balance(s):
+        op = circuit.operating_point(c, 460.0, 60.0, s)
+        return op.shaft_torque_nm - load_torque(op.speed_rpm)
+    lo, hi = 1e-6, circuit.breakdown(c, 460.0, 60.0)[1]
+    for _ in range(200):
+        mid = 0.5 * (lo + hi)
+        lo, hi = (lo, mid) if balance(mid) > 0 else (mid, hi)
+    return lo
+
+
+@pytest.mark.parametrize("load_torque", [
+    lambda n: 40.0,                         # constant torque
+    lambda n: 56.84 * (n / 1760.0) ** 2,    # centrifugal
+    lambda n: 56.84 * 1760.0 / n,           # constant power
+    lambda n: 30.0 * (1800.0 / n) ** 6,     # steep: torque climbs fast as speed falls
+    lambda n: 60.0 if n > 1763.0 else 45.0,  # a step the slip iteration cannot settle
+])
+def test_solver_meets_the_load_as_a_bisection_does(load_torque):
+    # the shaft torque balance itself (Chapman 4th ed. sec. 7.4-7.5), solved the slow way
+    op = circuit.solve(CHAPMAN_7_5, 460.0, 60.0, load_torque)
+    expected = _balance_slip(CHAPMAN_7_5, load_torque)
+    assert op.slip == pytest.approx(expected, rel=1e-6, abs=1e-9)
+
+
 def _three_phase_plates():
     for m in load_catalog(_demo_path("fleet.toml")).machines:
         if m.kind != "induction-motor" or m.phases != 3:
