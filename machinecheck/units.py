@@ -16,6 +16,7 @@ importing pint; pint's own registry cache is used likewise.
 from __future__ import annotations
 
 import contextlib
+import functools
 import json
 import math
 import os
@@ -108,15 +109,21 @@ def cache_path() -> str | None:
     """The file keeping pint's scales between runs, or None when caching is off.
 
     ``MACHINECHECK_CACHE`` names the folder ("" turns the cache off); otherwise it is
-    ``$XDG_CACHE_HOME/machinecheck`` or ``~/.cache/machinecheck``.
+    ``$XDG_CACHE_HOME/machinecheck`` or ``~/.cache/machinecheck``. Each pint installation has
+    its own file, so environments beside each other do not overwrite each other's.
     """
+    import zlib
+
     folder = os.environ.get("MACHINECHECK_CACHE")
     if folder is None:
         base = os.environ.get("XDG_CACHE_HOME") or os.path.join(os.path.expanduser("~"), ".cache")
         folder = os.path.join(base, "machinecheck")
-    return os.path.join(folder, "unit-scales.json") if folder else None
+    if not folder:
+        return None
+    return os.path.join(folder, f"unit-scales-{zlib.crc32(_cache_key().encode()):08x}.json")
 
 
+@functools.lru_cache(maxsize=1)
 def _cache_key() -> str:
     """What the stored scales depend on: the installed pint, and this module's tables."""
     import importlib.util

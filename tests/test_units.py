@@ -4,6 +4,7 @@ import json
 import os
 import subprocess
 import sys
+from pathlib import Path
 
 import pytest
 
@@ -18,7 +19,7 @@ def fresh(tmp_path, monkeypatch):
     monkeypatch.setattr(units, "_stored_table", None)
     monkeypatch.setattr(units, "_conversions", {})
     monkeypatch.setattr(units, "_values", {})
-    return tmp_path / "unit-scales.json"
+    return Path(units.cache_path())
 
 
 # 1 hp = 550 ft*lbf/s = 745.699872 W (NIST SP 811, B.8, from memory); 1 ft = 0.3048 m exactly
@@ -51,6 +52,13 @@ def test_scales_are_kept_for_the_next_run(fresh):
                          check=True).stdout.split()
     assert float(out[0]) == value
     assert out[1] == "False"  # read from the cache, pint not imported
+
+
+def test_each_pint_installation_has_its_own_file(fresh, monkeypatch):
+    units.parse("10 hp", "power")
+    monkeypatch.setattr(units, "_cache_key", lambda: "another pint|00000000")
+    assert units.cache_path() != str(fresh)
+    assert Path(units.cache_path()).parent == fresh.parent
 
 
 def test_offset_units_round_trip_through_the_cache(fresh):
