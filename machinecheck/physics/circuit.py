@@ -393,9 +393,12 @@ def solve(c: Circuit, voltage_v: float, frequency_hz: float, load_torque) -> Ope
         n = (1.0 - s) * n_s
         return load_torque(n) + rotational * n
 
-    def excess(s):
+    def induced(s):
         r = r2 / s
-        return k * r / ((r_th + r) ** 2 + x2sq) - asked(s)
+        return k * r / ((r_th + r) ** 2 + x2sq)
+
+    def excess(s):
+        return induced(s) - asked(s)
 
     def slip_for(t):
         """Slip on the stable branch where T_ind = t: the larger root r = R2/s of
@@ -412,7 +415,7 @@ def solve(c: Circuit, voltage_v: float, frequency_hz: float, load_torque) -> Ope
         return None
     lo = 1e-6
     asked_lo = asked(lo)
-    f_lo = k * (r2 / lo) / ((r_th + r2 / lo) ** 2 + x2sq) - asked_lo
+    f_lo = induced(lo) - asked_lo
     if f_lo >= 0.0:
         return operating_point(c, voltage_v, frequency_hz, lo, breakdown_point=peak)
     # The load torque changes little with slip near synchronous speed, so s = slip_for(asked(s))
@@ -433,7 +436,7 @@ def solve(c: Circuit, voltage_v: float, frequency_hz: float, load_torque) -> Ope
             step = s - residual * (s - previous[0]) / (residual - previous[1])
         previous = (s, residual)
         s = step
-    # otherwise (a load that climbs steeply with slip): bracketed regula falsi
+    # otherwise (a load torque that jumps or climbs too steeply): bracketed regula falsi
     # narrow the bracket around the small-slip estimate s ~ T R2 / k (T_ind ~ k s / R2)
     guess = -f_lo * r2 / k
     tolerance = -1e-8 * f_lo  # of the torque asked for: speed exact to ~1e-8 of the slip
