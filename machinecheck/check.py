@@ -8,8 +8,10 @@ never prints. Values are SI floats (W, V, A, Hz, rpm) as in the model.
 from __future__ import annotations
 
 import math
+from collections.abc import Mapping
 from dataclasses import dataclass, field
 from functools import lru_cache
+from types import MappingProxyType
 
 from .errors import DomainError
 from .model import Connection, Machine, Rating, Site
@@ -57,7 +59,7 @@ class Assessment:
     torque_capability: float
     synchronous_speed_rpm: float
     poles: int
-    tolerance: dict
+    tolerance: Mapping
     factors: dict
     combined_factor: float
     rated_power_w: float
@@ -253,8 +255,9 @@ def _tolerance(a: Assessment, w) -> None:
 @lru_cache(maxsize=8192)  # a fleet meets few distinct supply and winding voltages
 def tolerance_figures(standard: str, generator: bool, rerated: bool, supply_voltage_v: float,
                       site_voltage_v: float, site_voltage_range_v, rated_min_v: float,
-                      rated_max_v: float, frequency_ratio: float, flux_ratio: float) -> dict:
-    """Where the supply sits in the tolerance of ``standard``; the dict is shared, read-only.
+                      rated_max_v: float, frequency_ratio: float, flux_ratio: float):
+    """Where the supply sits in the tolerance of ``standard``: a read-only mapping, shared by
+    every pair with these figures.
 
     Keys: standard, basis ("rated", or "re-rated" when judged as flux at the new frequency),
     voltage_deviation, frequency_deviation, within, zone (IEC) or combined_variation (NEMA),
@@ -291,7 +294,7 @@ def tolerance_figures(standard: str, generator: bool, rerated: bool, supply_volt
         result["within"] = worst_zone is not None
         worst = points[zones.index(worst_zone)]
     result["worst_voltage_deviation"] = worst[0]
-    return result
+    return MappingProxyType(result)
 
 
 def _factors(a: Assessment, w) -> None:
