@@ -8,6 +8,7 @@ the machine or site id and the key; all problems of one file are gathered (up to
 from __future__ import annotations
 
 import difflib
+import functools
 import math
 import os
 import re
@@ -231,7 +232,7 @@ class _Fields:
             return default
         norm = value.strip().upper() if upper else value.strip()
         if choices is not None:
-            lookup = {c.upper(): c for c in choices}
+            lookup = _choice_lookup(tuple(choices))
             if norm.upper() not in lookup:
                 close = difflib.get_close_matches(norm, choices, n=1, cutoff=0.6)
                 hint = f" (did you mean {close[0]!r}?)" if close else ""
@@ -261,6 +262,12 @@ class _Fields:
 
 class _TooMany(Exception):
     pass
+
+
+@functools.lru_cache(maxsize=64)
+def _choice_lookup(choices: tuple) -> dict:
+    """{CHOICE: choice}: the spelling to keep for each accepted value, read in any case."""
+    return {c.upper(): c for c in choices}
 
 
 def _as_list(value):
