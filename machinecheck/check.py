@@ -551,11 +551,14 @@ def _code_current(a: Assessment, w) -> None:
     if site.standard != "NEMA" or not rating.power_w or not a.phases_ok:
         return
     hp = rating.power_w / 745.6998715822701
+    synchronous = m.kind == "synchronous-motor"
+    # only a synchronous motor's table current depends on its power factor: leaving it out
+    # otherwise lets the cache serve every induction motor of a size and voltage
+    power_factor = (rating.power_factor or 1.0) if synchronous else 1.0
     found = None
     for volts in (a.connection.voltage_v, site.voltage_v):
-        found = nec.table_current(hp, volts, phases=m.phases,
-                                  synchronous=m.kind == "synchronous-motor",
-                                  power_factor=rating.power_factor or 1.0)
+        found = nec.table_current(hp, volts, phases=m.phases, synchronous=synchronous,
+                                  power_factor=power_factor)
         if found:
             break
     if found:
