@@ -413,12 +413,17 @@ def _rule_speed(a: Assessment, load_torque, t_rated: float, w):
     rating = a.rating
     n_s = a.synchronous_speed_rpm
     slip_rated = 120.0 * rating.frequency_hz / a.poles - rating.speed_rpm
-    k2 = a.flux_ratio ** 2
-    n = n_s - slip_rated * (load_torque(n_s) / t_rated) / k2
+    k = a.flux_ratio
+
+    def rule(n):
+        return speed_physics.running_speed(n_s, slip_rated, torque_ratio=load_torque(n) / t_rated,
+                                           flux_ratio=k)
+
+    n = rule(n_s)
     for _ in range(60):
         if n <= 0.3 * n_s:
             break
-        n_next = n_s - slip_rated * (load_torque(n) / t_rated) / k2
+        n_next = rule(n)
         if abs(n_next - n) < 1e-7:
             n = n_next
             break
@@ -428,7 +433,7 @@ def _rule_speed(a: Assessment, load_torque, t_rated: float, w):
     tau = load_torque(n) / t_rated
     if w is not None:
         w.append(f"slip rule: slip at rated = {slip_rated:.1f} rpm; at the site slip = "
-                 f"{slip_rated:.1f} x T/T_rated {tau:.3f} / k^2 {k2:.3f} = {n_s - n:.1f} rpm -> "
+                 f"{slip_rated:.1f} x T/T_rated {tau:.3f} / k^2 {k * k:.3f} = {n_s - n:.1f} rpm -> "
                  f"n = {n:.0f} rpm")
     return n, tau
 
