@@ -508,11 +508,11 @@ def validate(files):
 def convert(source, target, output):
     """Convert a catalog between a CSV inventory and TOML (validated first)."""
     from .catalog import catalog_from_data, parse_toml, read_text
-    from .inventory import load_inventory, read_inventory, to_csv, to_toml
+    from .inventory import inventory_catalog, read_inventory, to_csv, to_toml
 
     if source.lower().endswith(".csv"):
-        load_inventory(source)
-        data = read_inventory(source)[0]
+        data, locator, name = read_inventory(source)
+        inventory_catalog(data, locator, name)
     else:
         text = read_text(source)
         data = parse_toml(text, source)

@@ -170,7 +170,11 @@ def _key_to_column(key: str | None) -> str | None:
 
 def load_inventory(path):
     """Read and validate a CSV inventory into a Catalog; errors name row and column."""
-    data, locator, name = read_inventory(path)
+    return inventory_catalog(*read_inventory(path))
+
+
+def inventory_catalog(data: dict, locator, name: str):
+    """Validate what :func:`read_inventory` read into a Catalog; errors name row and column."""
     try:
         return catalog_from_data(data, name, locator=locator)
     except InputErrors as exc:
