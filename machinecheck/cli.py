@@ -374,11 +374,12 @@ def _from_texts(catalogs, sites_file, site_ids, values, fmt, output, explain, pr
     if errors or any(p is None for p in plans):
         return None
     sites = _select(sites, site_ids, "site")
-    if sum(p.machines for p in plans) * len(sites) < runner.PARALLEL_PAIRS:
+    machines = sum(p.machines for p in plans)
+    if machines * len(sites) < runner.PARALLEL_PAIRS:
         return None
     tally = runner.Tally()
     try:
-        with _progress(sum(p.machines for p in plans), True) as bar:
+        with _progress(machines, True) as bar:
             write_output(runner.stream_files(plans, sites, fmt, explain=explain,
                                              problems_only=problems_only, tally=tally,
                                              progress=None if bar is None else bar.update,

@@ -51,7 +51,10 @@ class FilePlan:
     name: str
     text: str
     pieces: list
-    machines: int
+
+    @property
+    def machines(self) -> int:
+        return sum(count for _, _, count in self.pieces)
 
 
 @dataclass
@@ -244,10 +247,10 @@ def plan_file(name: str, text: str) -> FilePlan | None:
     starts = [m.start() for m in _MACHINE_HEADER.finditer(text)]
     if len(starts) < 2:
         return None
-    cuts = [0] + starts[CHUNK_MACHINES::CHUNK_MACHINES] + [len(text)]
-    counts = [CHUNK_MACHINES] * (len(cuts) - 2) + [len(starts) - CHUNK_MACHINES * (len(cuts) - 2)]
-    return FilePlan(name=name, text=text, machines=len(starts),
-                    pieces=[(cuts[i], cuts[i + 1], counts[i]) for i in range(len(cuts) - 1)])
+    firsts = range(0, len(starts), CHUNK_MACHINES)  # index of each piece's first machine
+    cuts = [0] + [starts[i] for i in firsts[1:]] + [len(text)]
+    return FilePlan(name=name, text=text, pieces=[
+        (cuts[n], cuts[n + 1], min(CHUNK_MACHINES, len(starts) - i)) for n, i in enumerate(firsts)])
 
 
 def stream_files(plans, sites, fmt, *, explain=False, problems_only=False, tally: Tally,
