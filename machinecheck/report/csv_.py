@@ -43,7 +43,6 @@ def chunk(assessments, **_) -> str:
     return buffer.getvalue()
 
 
-
 def chunk_bytes(assessments, **options) -> bytes:
     return chunk(assessments, **options).encode()
 

@@ -41,7 +41,6 @@ def _e(text) -> str:
     return escape("".join(ch if ch.isprintable() or ch == "\n" else " " for ch in str(text)))
 
 
-
 def _xy(df, dv):
     (x0, x1), (y0, y1) = _X_RANGE, _Y_RANGE
     x = _PAD + (df - x0) / (x1 - x0) * (_W - 2 * _PAD)

@@ -13,7 +13,6 @@ def cell(text) -> str:
     return cleaned.replace("\\", "\\\\").replace("|", "\\|")
 
 
-
 def render(assessments, *, explain=False, matrix=False, **_) -> str:
     out = ["# machinecheck report", ""]
     counts = summary_counts(assessments)

@@ -17,7 +17,6 @@ _MARK = {"compatible": "compatible", "conditional": "conditional",
          "incompatible": "incompatible"}
 
 
-
 def _safe(text: str, limit: int = 400) -> str:
     """User text shown literally: control characters replaced, very long text cut."""
     cleaned = "".join(ch if ch.isprintable() or ch == "\n" else "?" for ch in str(text))
