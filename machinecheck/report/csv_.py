@@ -46,6 +46,7 @@ def chunk(assessments, **_) -> str:
 def chunk_bytes(assessments, **options) -> bytes:
     return chunk(assessments, **options).encode()
 
+
 def join(chunks) -> str:
     return "".join(chunks)
 
