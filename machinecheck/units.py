@@ -21,6 +21,7 @@ import json
 import math
 import os
 import re
+import zlib
 
 from .errors import InputError
 
@@ -88,13 +89,14 @@ def _conversion(unit: str, kind: str) -> tuple[float, float] | str:
     elif unit == internal and kind != "percent":
         result = (1.0, 0.0)
     else:
-        stored = _stored().get(f"{kind} {unit}")
+        name = f"{kind} {unit}"
+        stored = _stored().get(name)
         if stored is not None:
             result = (float(stored[0]), float(stored[1]))
         else:
             result = _pint_conversion(_ALIASES.get(unit, unit), kind)
             if not isinstance(result, str):
-                _store(f"{kind} {unit}", result)
+                _store(name, result)
     _conversions[key] = result
     return result
 
@@ -112,8 +114,6 @@ def cache_path() -> str | None:
     ``$XDG_CACHE_HOME/machinecheck`` or ``~/.cache/machinecheck``. Each pint installation has
     its own file, so environments beside each other do not overwrite each other's.
     """
-    import zlib
-
     folder = os.environ.get("MACHINECHECK_CACHE")
     if folder is None:
         base = os.environ.get("XDG_CACHE_HOME") or os.path.join(os.path.expanduser("~"), ".cache")
@@ -134,8 +134,6 @@ def _cache_key() -> str:
     except OSError:
         stat = None
     pint_id = f"{spec.origin}:{stat.st_mtime_ns}:{stat.st_size}" if stat else "no pint"
-    import zlib
-
     code = _pint_conversion.__code__
     tables = json.dumps([_CACHE_FORMAT, KINDS, _ALIASES], sort_keys=True)
     checksum = zlib.crc32(tables.encode() + code.co_code + repr(code.co_consts).encode())
