@@ -237,6 +237,22 @@ def stream(machines, sites, fmt, *, explain=False, problems_only=False, tally: T
         _JOB = None
 
 
+def machine_header_starts(text: str) -> list[int]:
+    """Offsets of the lines that start a machine table (as ``_MACHINE_HEADER`` finds them).
+
+    Only lines that begin with "[[" are tried, and a plain header needs no expression: str.find
+    skips the rest several times faster than the expression scanning every line.
+    """
+    match, plain = _MACHINE_HEADER.match, text.startswith
+    starts = [0] if match(text, 0) else []
+    at = text.find("\n[[")
+    while at >= 0:
+        if plain("[[machine]]\n", at + 1) or match(text, at + 1):
+            starts.append(at + 1)
+        at = text.find("\n[[", at + 3)
+    return starts
+
+
 def plan_file(name: str, text: str) -> FilePlan | None:
     """Where to cut a TOML catalog into pieces of about CHUNK_MACHINES machines; None if unsafe.
 
@@ -244,7 +260,7 @@ def plan_file(name: str, text: str) -> FilePlan | None:
     """
     if '"""' in text or "'''" in text:
         return None
-    starts = [m.start() for m in _MACHINE_HEADER.finditer(text)]
+    starts = machine_header_starts(text)
     if len(starts) < 2:
         return None
     firsts = range(0, len(starts), CHUNK_MACHINES)  # index of each piece's first machine

@@ -204,3 +204,14 @@ def test_pieces_without_the_fast_reader(monkeypatch):
     text = _generated_catalog(5)
     assert runner.parse_piece(text) == _tomllib(text)
     assert runner.parse_piece("a = 1\na = 2\n") is None
+
+
+@pytest.mark.parametrize("text", [
+    "[[machine]]\nid = 'A'\n[[machine]]\n",
+    "\n[[ machine ]] # first\n  [[machine]]\n[[machine.rating]]\n[[machine]]x\n[[machine]]",
+    "[[machines]]\n[[site]]\n\n[[\tmachine\t]]\t\n[[machine]]\r\n[[machine]]\n\n",
+    "", "[[", "\n[[", "id = 1\n[[machine]]  # a\n[[machine]]#b\n",
+])
+def test_machine_headers_are_found_where_the_expression_finds_them(text):
+    expected = [m.start() for m in runner._MACHINE_HEADER.finditer(text)]
+    assert runner.machine_header_starts(text) == expected
