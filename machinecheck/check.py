@@ -363,13 +363,13 @@ def _motor_speed_and_load(a: Assessment, w) -> None:
     if load is not None:
         t0 = load.torque_nm if load.torque_nm is not None else speed_physics.shaft_torque(
             load.power_w, n_ref)
-        load_torque = loads.torque_curve(load.type, t0, n_ref)
+        curve = (load.type, t0, n_ref)
     elif a.available_power_w:
         # no load given: the motor is taken to deliver its available output at any speed
-        load_torque = loads.torque_curve("constant-power", a.available_power_w * 30.0 / math.pi,
-                                         1.0)
+        curve = ("constant-power", a.available_power_w * 30.0 / math.pi, 1.0)
     else:
-        load_torque = None
+        curve = None
+    load_torque = None if curve is None else loads.torque_curve(*curve)
 
     if not a.phases_ok:
         return
@@ -378,7 +378,7 @@ def _motor_speed_and_load(a: Assessment, w) -> None:
         if w is not None:
             w.append(f"synchronous motor: runs at n_s = {n_s:.0f} rpm")
     elif rating.speed_rpm is not None and t_rated and load_torque is not None:
-        n_rule, tau = _rule_speed(a, load_torque, t_rated, w)
+        n_rule, tau = _rule_speed(a, curve, load_torque, t_rated, w)
         a.rule_speed_rpm = n_rule
         a.circuit = _estimate_circuit(a)
         if a.circuit is None:
@@ -408,27 +408,16 @@ def _motor_speed_and_load(a: Assessment, w) -> None:
                      f"{ratio:.3f}; load power = {a.load_power_w / 1000:.2f} kW")
 
 
-def _rule_speed(a: Assessment, load_torque, t_rated: float, w):
+def _rule_speed(a: Assessment, curve, load_torque, t_rated: float, w):
     """Running speed by the linear slip rule (the cross-check): (speed or None, T / T_rated)."""
     rating = a.rating
     n_s = a.synchronous_speed_rpm
     slip_rated = 120.0 * rating.frequency_hz / a.poles - rating.speed_rpm
     k = a.flux_ratio
-
-    def rule(n):
-        return speed_physics.running_speed(n_s, slip_rated, torque_ratio=load_torque(n) / t_rated,
-                                           flux_ratio=k)
-
-    n = rule(n_s)
-    for _ in range(60):
-        if n <= 0.3 * n_s:
-            break
-        n_next = rule(n)
-        if abs(n_next - n) < 1e-7:
-            n = n_next
-            break
-        n = n_next
-    if n <= 0.5 * n_s:
+    load_type, t0, n0 = curve
+    n = speed_physics.slip_rule_speed(n_s, slip_rated, t_rated, k, t0,
+                                      loads.TORQUE_EXPONENT[load_type], n0)
+    if n is None:
         return None, None
     tau = load_torque(n) / t_rated
     if w is not None:

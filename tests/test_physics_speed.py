@@ -84,6 +84,39 @@ def test_slip_proportional_to_torque():
     assert sp.running_speed(1500, 40, torque_ratio=0.0) == pytest.approx(1500)
 
 
+@pytest.mark.parametrize("exponent", [2, 0, -1])
+@pytest.mark.parametrize("load_nm,k", [(50.0, 1.0), (71.6, 0.9), (20.0, 1.1), (120.0, 0.95)])
+def test_slip_rule_speed_is_where_the_rule_meets_the_load(exponent, load_nm, k):
+    # The slip rule n = n_s - slip_rated (T/T_rated) / k^2 (NEMA MG 1 12.44.2 torque ~ V^2/f^2,
+    # Chapman sec. 6.5) met by a load T0 (n / n0)^e: the closed form must satisfy the rule.
+    n_s, slip_rated, t_rated, n0 = 1800.0, 40.0, 71.6, 1760.0
+    n = sp.slip_rule_speed(n_s, slip_rated, t_rated, k, load_nm, exponent, n0)
+    load = load_nm * (n / n0) ** exponent
+    assert n == pytest.approx(sp.running_speed(n_s, slip_rated, torque_ratio=load / t_rated,
+                                               flux_ratio=k), abs=1e-9)
+    assert 0.5 * n_s < n <= n_s
+
+
+def test_slip_rule_speed_at_rated_load_is_rated_speed():
+    # At rated torque, rated flux and the rated frequency the rule returns the plate speed
+    # (a 4-pole 60 Hz motor stamped 1760 rpm; practice notes Q2).
+    t_rated = sp.shaft_torque(11000, 1760)
+    for exponent in (2, 0, -1):
+        assert sp.slip_rule_speed(1800, 40, t_rated, 1.0, t_rated, exponent, 1760) == (
+            pytest.approx(1760))
+
+
+def test_slip_rule_speed_stalls_far_from_the_low_slip_region():
+    # A constant-power load the rule cannot meet (no real root), and a constant-torque load
+    # that would pull the speed under half of n_s: both read as a stall (common practice).
+    assert sp.slip_rule_speed(1800, 40, 10.0, 0.5, 30.0, -1, 1760) is None
+    assert sp.slip_rule_speed(1800, 40, 10.0, 1.0, 300.0, 0, 1760) is None
+    with pytest.raises(DomainError):
+        sp.slip_rule_speed(1800, 40, 10.0, 1.0, 10.0, 3, 1760)
+    with pytest.raises(DomainError):
+        sp.slip_rule_speed(1800, 40, 10.0, 0.0, 10.0, 0, 1760)
+
+
 def test_shaft_torque_identity():
     # T [N m] = 9550 P [kW] / n [rpm] (unit identity, from memory).
     assert sp.shaft_torque(11000, 1460) == pytest.approx(9549.3 * 11 / 1460, rel=1e-4)

@@ -137,6 +137,59 @@ def running_speed(synchronous_speed_rpm: float, rated_slip_rpm: float, *,
     return synchronous_speed_rpm - rated_slip_rpm * torque_ratio / flux_ratio ** 2
 
 
+def slip_rule_speed(synchronous_speed_rpm: float, rated_slip_rpm: float, rated_torque_nm: float,
+                    flux_ratio: float, load_torque_nm: float, load_exponent: int,
+                    reference_speed_rpm: float) -> float | None:
+    """Speed at which the linear slip rule (:func:`running_speed`) meets the load, or None.
+
+    The load's torque goes as T = T0 (n / n0)**e (e = 2 centrifugal, 0 constant torque, -1
+    constant power), and the rule is n = n_s - c T(n) with c = slip_rated / (T_rated k**2):
+
+        e = 0:   n = n_s - c T0
+        e = 2:   c a n**2 + n - n_s = 0, a = T0 / n0**2  ->  n = 2 n_s / (1 + sqrt(1 + 4 c a n_s))
+        e = -1:  n**2 - n_s n + c b = 0, b = T0 n0       ->  n = (n_s + sqrt(n_s**2 - 4 c b)) / 2
+
+    taking the root on the stable side of the torque-speed curve. None when there is no such
+    speed, or it lies at or below half the synchronous speed: far outside the low-slip region
+    the rule describes, the motor is taken as stalled.
+
+    Parameters
+    ----------
+    synchronous_speed_rpm : synchronous speed at the site frequency [rpm]
+    rated_slip_rpm : n_s - n_rated on the rated supply [rpm]
+    rated_torque_nm : rated shaft torque [N m]
+    flux_ratio : V/f at the site over rated V/f, k [-]
+    load_torque_nm : load torque T0 at the reference speed [N m]
+    load_exponent : e above [-]
+    reference_speed_rpm : the speed n0 at which the load asks T0 [rpm]
+
+    References
+    ----------
+    .. [1] As :func:`running_speed`; the quadratics are elementary algebra.
+    """
+    if not flux_ratio > 0:
+        raise DomainError(f"flux ratio must be positive, got {flux_ratio!r}")
+    if not (rated_torque_nm > 0 and reference_speed_rpm > 0):
+        raise DomainError("rated torque and reference speed must be positive")
+    if load_torque_nm < 0:
+        raise DomainError(f"load torque must not be negative, got {load_torque_nm!r}")
+    n_s = synchronous_speed_rpm
+    c = rated_slip_rpm / (rated_torque_nm * flux_ratio * flux_ratio)
+    if load_exponent == 0:
+        n = n_s - c * load_torque_nm
+    elif load_exponent == 2:
+        ca = c * load_torque_nm / (reference_speed_rpm * reference_speed_rpm)
+        n = 2.0 * n_s / (1.0 + math.sqrt(1.0 + 4.0 * ca * n_s))
+    elif load_exponent == -1:
+        disc = n_s * n_s - 4.0 * c * load_torque_nm * reference_speed_rpm
+        if disc < 0.0:
+            return None
+        n = 0.5 * (n_s + math.sqrt(disc))
+    else:
+        raise DomainError(f"load torque exponent must be 2, 0 or -1, got {load_exponent!r}")
+    return n if n > 0.5 * n_s else None
+
+
 def shaft_torque(power_w: float, speed_rpm: float) -> float:
     """Shaft torque T = P / omega [N*m] from power [W] and speed [rpm].
 
