@@ -135,9 +135,18 @@ def choose(machine: Machine, site: Site):
     A rating set for the site frequency beats re-rating from another one; then the connection
     (and, for single-phase machines, the supply voltage) whose V/f is nearest the rated V/f.
     """
-    matching = [r for r in machine.ratings
+    ratings = machine.ratings
+    if len(ratings) == 1 and len(ratings[0].connections) == 1 and (
+            machine.phases == 3 or site.phases == 2):
+        # one rating, one connection, one supply voltage: nothing to choose between
+        rating = ratings[0]
+        connection = rating.connections[0]
+        volts, f_ratio = site.voltage_v, site.frequency_hz / rating.frequency_hz
+        reference = connection.reference_voltage(volts / f_ratio)
+        return rating, connection, volts, "", (volts / reference) / f_ratio, reference
+    matching = [r for r in ratings
                 if in_frequency_band(site.frequency_hz / r.frequency_hz - 1.0, site.standard)]
-    candidates = matching or list(machine.ratings)
+    candidates = matching or list(ratings)
     best = None
     for rating in candidates:
         f_ratio = site.frequency_hz / rating.frequency_hz

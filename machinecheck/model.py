@@ -85,14 +85,13 @@ class Machine:
     load: Load | None = None
     source: str | None = field(default=None, compare=False)
     line: int | None = field(default=None, compare=False)
+    # derived from kind once: the engine asks them a dozen times a pair
+    is_generator: bool = field(init=False, compare=False, repr=False)
+    is_synchronous: bool = field(init=False, compare=False, repr=False)
 
-    @property
-    def is_generator(self) -> bool:
-        return self.kind == "synchronous-generator"
-
-    @property
-    def is_synchronous(self) -> bool:
-        return self.kind != "induction-motor"
+    def __post_init__(self) -> None:
+        object.__setattr__(self, "is_generator", self.kind == "synchronous-generator")
+        object.__setattr__(self, "is_synchronous", self.kind != "induction-motor")
 
 
 @dataclass(frozen=True, slots=True)

@@ -113,6 +113,7 @@ def minimum_efficiency(efficiency_class: str, power_kw: float, poles: int,
 
 
 @functools.lru_cache(maxsize=4096)
+@functools.lru_cache(maxsize=4096)  # the same rating set meets every site
 def efficiency_class_of(efficiency: float, power_kw: float, poles: int,
                         frequency_hz: float) -> str | None:
     """Highest IE class whose minimum the efficiency meets; None below IE1 or out of scope.

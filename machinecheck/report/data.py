@@ -2,6 +2,9 @@
 
 from __future__ import annotations
 
+import math
+from types import MappingProxyType
+
 from ..check import SEVERITIES, VERDICTS
 
 
@@ -29,12 +32,35 @@ def _kilo(value, digits):
     return None if value is None else _r(value / 1000.0, digits)
 
 
+#: id(tolerance mapping) -> (mapping, its output dict): the engine shares one mapping between
+#: every pair with the same figures, so most pairs find theirs here.
+_TOLERANCE_DICTS: dict[int, tuple] = {}
+
+
+def _tolerance_dict(t) -> dict:
+    """The "tolerance" part of a result (shared between results: read it, do not change it)."""
+    kept = _TOLERANCE_DICTS.get(id(t))
+    if kept is not None and kept[0] is t:
+        return kept[1]
+    out = {"standard": t.get("standard"), "basis": t.get("basis"), "zone": t.get("zone"),
+           "within": t.get("within"), "voltage_deviation": _r(t.get("voltage_deviation"), 4),
+           "frequency_deviation": _r(t.get("frequency_deviation"), 4),
+           "combined_variation": _r(t.get("combined_variation"), 4)}
+    if type(t) is MappingProxyType:  # read-only, so its output cannot go stale
+        if len(_TOLERANCE_DICTS) >= 10_000:
+            _TOLERANCE_DICTS.clear()
+        _TOLERANCE_DICTS[id(t)] = (t, out)
+    return out
+
+
 def result_dict(a, *, explain: bool = False) -> dict:
-    """The JSON contract of one (machine, site) result; see docs/json.md."""
+    """The JSON contract of one (machine, site) result; see docs/json.md.
+
+    Parts of it may be shared between results (the tolerance): treat it as read-only.
+    """
     r = _r
     c = a.connection
     lrc = a.locked_rotor_current_a
-    t = a.tolerance
     code_current = a.code_current_a
     data = {
         "machine": a.machine.id,
@@ -57,11 +83,7 @@ def result_dict(a, *, explain: bool = False) -> dict:
         "rerated": a.rerated,
         "speed_tolerance_rpm": r(a.speed_band_rpm, 1),
         "torque_capability": r(a.torque_capability, 4),
-        "tolerance": {"standard": t.get("standard"), "basis": t.get("basis"),
-                      "zone": t.get("zone"), "within": t.get("within"),
-                      "voltage_deviation": r(t.get("voltage_deviation"), 4),
-                      "frequency_deviation": r(t.get("frequency_deviation"), 4),
-                      "combined_variation": r(t.get("combined_variation"), 4)},
+        "tolerance": _tolerance_dict(a.tolerance),
         "derating": {name: r(value, 4) for name, value in a.factors.items()},
         "combined_derating": r(a.combined_factor, 4),
         "service_factor_at_site": r(a.service_factor_at_site, 2),
@@ -74,7 +96,7 @@ def result_dict(a, *, explain: bool = False) -> dict:
         "rule_speed_rpm": r(a.rule_speed_rpm, 1),
         "star_delta_possible": a.star_delta_possible,
         "locked_rotor_current_a": None if lrc is None else {
-            "low": r(lrc[0], 1), "high": None if lrc[1] == float("inf") else r(lrc[1], 1),
+            "low": r(lrc[0], 1), "high": None if lrc[1] == math.inf else r(lrc[1], 1),
             "basis": a.locked_rotor_basis},
         "code_current_a": r(code_current, 2),
         "code_current_hp": a.code_current_hp,
