@@ -205,11 +205,12 @@ def estimate(power_w: float, voltage_v: float, frequency_hz: float, poles: int,
         return math.log(_peak(v_th, r_th, x_th + x2, w_sync)[0] / target), fit
 
     # T_max falls as the leakage grows, nearly as 1 / X: in u = log X the excess is close to a
-    # straight line, so secant steps from a first step of slope -1 converge in a few trials;
-    # a step that leaves the bracket, or lands where no circuit fits, is bisected instead.
+    # straight line (slope about -0.8 where the fits land, at X ~ 0.16-0.23 |Z_in|), so secant
+    # steps from a first step of that slope converge in a few trials; a step that leaves the
+    # bracket, or lands where no circuit fits, is bisected instead.
     lo, hi = math.log(1e-6 * abs(z_in)), math.log(abs(z_in))
     best = None
-    u = math.log(0.15 * abs(z_in))  # a typical locked-rotor reactance, per unit of |Z_in|
+    u = math.log(0.2 * abs(z_in))  # a typical locked-rotor reactance, per unit of |Z_in|
     previous = None
     for _ in range(80):
         f_u, fit = excess(math.exp(u))
@@ -230,7 +231,7 @@ def estimate(power_w: float, voltage_v: float, frequency_hz: float, poles: int,
         elif previous is not None and previous[1] != f_u:
             step = u - f_u * (u - previous[0]) / (f_u - previous[1])
         else:
-            step = u + f_u
+            step = u + 1.25 * f_u
         if f_u is not None:
             previous = (u, f_u)
         u = step if lo < step < hi else 0.5 * (lo + hi)
