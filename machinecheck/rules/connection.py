@@ -8,12 +8,7 @@ def check(a) -> None:
         return
     c, rating = a.connection, a.rating
     if len(rating.connections) > 1:
-        others = ", ".join(
-            f"{x.name or 'unnamed'} {x.voltage_min_v:g} V" for x in rating.connections if x is not c)
-        current = f", {c.current_a:.1f} A rated" if c.current_a else ""
-        a.add("connection", "info",
-              f"connect {c.name or 'for'} {c.voltage_min_v:g} V{current} (not {others}); set "
-              "overloads for this connection's current")
+        a.add("connection", "info", _connect(c, rating))
     if a.star_delta_possible is True:
         a.add("star-delta", "info",
               "star-delta starting possible: the delta voltage matches the supply")
@@ -28,3 +23,22 @@ def check(a) -> None:
         a.add("locked-rotor-current", "info",
               f"locked-rotor current at the site about {band} ({a.locked_rotor_basis}, scaled by "
               f"k = {a.flux_ratio:.3f}): size starters, generators and voltage dip for it")
+
+
+#: id(connection) -> (connection, rating, message): the text is the same at every site
+_CONNECT: dict[int, tuple] = {}
+
+
+def _connect(c, rating) -> str:
+    kept = _CONNECT.get(id(c))
+    if kept is not None and kept[0] is c and kept[1] is rating:
+        return kept[2]
+    others = ", ".join(
+        f"{x.name or 'unnamed'} {x.voltage_min_v:g} V" for x in rating.connections if x is not c)
+    current = f", {c.current_a:.1f} A rated" if c.current_a else ""
+    message = (f"connect {c.name or 'for'} {c.voltage_min_v:g} V{current} (not {others}); set "
+               "overloads for this connection's current")
+    if len(_CONNECT) >= 10_000:
+        _CONNECT.clear()
+    _CONNECT[id(c)] = (c, rating, message)
+    return message
