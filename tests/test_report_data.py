@@ -5,7 +5,7 @@ import random
 
 import pytest
 
-from machinecheck.report.data import _r
+from machinecheck.report.data import _r, _Rounded
 
 
 def _values():
@@ -28,3 +28,17 @@ def test_rounding_is_python_round(digits):
 
 def test_unknown_stays_unknown():
     assert _r(None, 2) is None
+
+
+@pytest.mark.parametrize("digits", [1, 2, 4])
+def test_remembered_rounding_is_the_same_rounding(digits):
+    # asked twice, in either order of a zero's signs, an int and its float, NaN and None
+    memo = _Rounded(digits)
+    values = [*list(_values())[::50], -0.0, 0.0, -0.0, 7, 7.0, 1490.0, 1490, math.nan, None]
+    for value in values + values[::-1]:
+        got, want = memo[value], _r(value, digits)
+        if want is None or math.isnan(want):
+            assert got is None if want is None else math.isnan(got)
+            continue
+        assert got == want and type(got) is type(want)
+        assert math.copysign(1.0, got) == math.copysign(1.0, want)

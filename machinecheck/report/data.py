@@ -28,6 +28,28 @@ def _r(value, digits):
 _SCALES = {digits: 10.0 ** digits for digits in range(6)}
 
 
+class _Rounded(dict):
+    """value -> _r(value, digits), remembered: the figures a fleet repeats (frequencies,
+    voltages, synchronous speeds, flux ratios, deratings) are rounded once, then looked up."""
+
+    __slots__ = ("digits",)
+
+    def __init__(self, digits: int):
+        super().__init__()
+        self.digits = digits
+
+    def __missing__(self, value):
+        result = _r(value, self.digits)
+        if value and value == value:  # not None; zero keeps its sign; NaN never matches
+            if len(self) >= 20_000:
+                self.clear()
+            self[value] = result
+        return result
+
+
+_R1, _R2, _R3, _R4 = (_Rounded(digits) for digits in (1, 2, 3, 4))
+
+
 def _kilo(value, digits):
     return None if value is None else _r(value / 1000.0, digits)
 
@@ -66,27 +88,27 @@ def result_dict(a, *, explain: bool = False) -> dict:
         "machine": a.machine.id,
         "site": a.site.id,
         "verdict": a.verdict,
-        "rating": {"frequency_hz": r(a.rating.frequency_hz, 3),
-                   "voltage_v": r(a.rated_voltage_v, 1),
+        "rating": {"frequency_hz": _R3[a.rating.frequency_hz],
+                   "voltage_v": _R1[a.rated_voltage_v],
                    "connection": c.name},
-        "synchronous_speed_rpm": r(a.synchronous_speed_rpm, 1),
+        "synchronous_speed_rpm": _R1[a.synchronous_speed_rpm],
         "expected_speed_rpm": r(a.expected_speed_rpm, 1),
         "available_power_kw": _kilo(a.available_power_w, 2),
         "load_power_kw": _kilo(a.load_power_w, 2),
         "full_load_current_a": r(a.full_load_current_a, 1),
-        "flux_ratio": r(a.flux_ratio, 4),
+        "flux_ratio": _R4[a.flux_ratio],
         "findings": [{"code": f.code, "severity": f.severity, "message": f.message}
                      for f in a.findings],
-        "rated_power_kw": r(a.rated_power_w / 1000.0, 2),
-        "supply_voltage_v": r(a.supply_voltage_v, 1),
+        "rated_power_kw": _R2[a.rated_power_w / 1000.0],
+        "supply_voltage_v": _R1[a.supply_voltage_v],
         "poles": a.poles,
         "rerated": a.rerated,
         "speed_tolerance_rpm": r(a.speed_band_rpm, 1),
-        "torque_capability": r(a.torque_capability, 4),
+        "torque_capability": _R4[a.torque_capability],
         "tolerance": _tolerance_dict(a.tolerance),
-        "derating": {name: r(value, 4) for name, value in a.factors.items()},
-        "combined_derating": r(a.combined_factor, 4),
-        "service_factor_at_site": r(a.service_factor_at_site, 2),
+        "derating": {name: _R4[value] for name, value in a.factors.items()},
+        "combined_derating": _R4[a.combined_factor],
+        "service_factor_at_site": _R2[a.service_factor_at_site],
         "current_basis": a.current_basis,
         "operating_current_a": r(a.operating_current_a, 1),
         "operating_power_factor": r(a.operating_power_factor, 3),
@@ -98,10 +120,10 @@ def result_dict(a, *, explain: bool = False) -> dict:
         "locked_rotor_current_a": None if lrc is None else {
             "low": r(lrc[0], 1), "high": None if lrc[1] == math.inf else r(lrc[1], 1),
             "basis": a.locked_rotor_basis},
-        "code_current_a": r(code_current, 2),
+        "code_current_a": None if code_current is None else _R2[code_current],
         "code_current_hp": a.code_current_hp,
-        "conductor_current_a": None if code_current is None else r(1.25 * code_current, 2),
-        "voltage_unbalance": r(a.unbalance, 4),
+        "conductor_current_a": None if code_current is None else _R2[1.25 * code_current],
+        "voltage_unbalance": None if a.unbalance is None else _R4[a.unbalance],
         "efficiency_class": a.efficiency_class,
         "load_fraction": r(a.load_fraction, 4),
         "flow_ratio": r(a.flow_ratio, 4),
