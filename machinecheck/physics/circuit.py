@@ -334,8 +334,9 @@ def operating_point(c: Circuit, voltage_v: float, frequency_hz: float, slip: flo
     z_rotor = complex(c.r2_ohm / slip, c.x2_ohm * f_ratio)
     z_m = complex(0.0, c.xm_ohm * f_ratio)
     z_in = complex(c.r1_ohm, c.x1_ohm * f_ratio) + z_m * z_rotor / (z_m + z_rotor)
-    i1 = v_ph / abs(z_in)
-    pf = z_in.real / abs(z_in)
+    z_abs = abs(z_in)
+    i1 = v_ph / z_abs
+    pf = z_in.real / z_abs
     p_in = 3.0 * v_ph * i1 * pf
     p_ag = p_in - 3.0 * i1 * i1 * c.r1_ohm
     p_conv = (1.0 - slip) * p_ag
@@ -347,12 +348,10 @@ def operating_point(c: Circuit, voltage_v: float, frequency_hz: float, slip: flo
     w_sync = n_s * math.pi / 30.0
     w_m = speed * math.pi / 30.0
     t_max, s_max = breakdown_point or breakdown(c, voltage_v, frequency_hz)
-    return OperatingPoint(
-        slip=slip, speed_rpm=speed, current_a=i1, power_factor=pf, input_power_w=p_in,
-        air_gap_power_w=p_ag, converted_power_w=p_conv, output_power_w=p_out,
-        induced_torque_nm=p_ag / w_sync, shaft_torque_nm=p_out / w_m if w_m > 0 else 0.0,
-        efficiency=p_out / p_in if p_in > 0 else 0.0, breakdown_torque_nm=t_max,
-        breakdown_slip=s_max)
+    # positional, in field order: a pair makes one, and keywords cost a third more
+    return OperatingPoint(slip, speed, i1, pf, p_in, p_ag, p_conv, p_out, p_ag / w_sync,
+                          p_out / w_m if w_m > 0 else 0.0, p_out / p_in if p_in > 0 else 0.0,
+                          t_max, s_max)
 
 
 def solve(c: Circuit, voltage_v: float, frequency_hz: float, load_torque) -> OperatingPoint | None:
