@@ -23,7 +23,6 @@ from .physics.efficiency import efficiency_class_of, minimum_efficiency
 
 SEVERITIES = ("info", "warning", "problem")
 VERDICTS = ("compatible", "conditional", "incompatible")
-_VERDICT_OF = {"info": "compatible", "warning": "conditional", "problem": "incompatible"}
 
 #: Frequency band of each standard's tolerance (per unit); outside it the machine is re-rated.
 FREQUENCY_BAND = {"IEC": (-0.05, 0.03), "NEMA": (-0.05, 0.05)}
@@ -200,9 +199,19 @@ def assess(machine: Machine, site: Site, *, explain: bool = False) -> Assessment
 
     for rule in _rules():
         rule(a)
-    found = {f.severity for f in a.findings}
-    a.verdict = next((_VERDICT_OF[s] for s in reversed(SEVERITIES) if s in found), "compatible")
+    a.verdict = verdict_of(a.findings)
     return a
+
+
+def verdict_of(findings) -> str:
+    """The verdict the worst finding gives: problem -> incompatible, warning -> conditional."""
+    verdict = "compatible"
+    for f in findings:
+        if f.severity == "problem":
+            return "incompatible"
+        if f.severity == "warning":
+            verdict = "conditional"
+    return verdict
 
 
 def _rules():
@@ -445,10 +454,10 @@ def _estimate_circuit(a: Assessment):
     if c.is_range and current is not None and a.rated_voltage_v != c.voltage_v:
         current = current * c.voltage_v / a.rated_voltage_v
     try:
+        # positional: the cache's key is built several times faster than with keywords
         return circuit_physics.estimate(
             rating.power_w, a.rated_voltage_v, rating.frequency_hz, a.poles, rating.speed_rpm,
-            current_a=current, power_factor=rating.power_factor, efficiency=rating.efficiency,
-            design=m.design_letter)
+            current, rating.power_factor, rating.efficiency, m.design_letter)
     except DomainError as exc:
         a.circuit_unavailable = str(exc)
         return None
@@ -560,8 +569,7 @@ def _code_current(a: Assessment, w) -> None:
     power_factor = (rating.power_factor or 1.0) if synchronous else 1.0
     found = None
     for volts in (a.connection.voltage_v, site.voltage_v):
-        found = nec.table_current(hp, volts, phases=m.phases, synchronous=synchronous,
-                                  power_factor=power_factor)
+        found = nec.table_current(hp, volts, m.phases, synchronous, power_factor)  # cache key
         if found:
             break
     if found:
@@ -589,7 +597,7 @@ def _efficiency(a: Assessment) -> None:
 def _service_factor(a: Assessment) -> None:
     sf = a.rating.service_factor or a.machine.service_factor
     a.service_factor = sf
-    clean = (not a.rerated and all(v >= 0.999 for v in a.factors.values())
+    clean = (not a.rerated and min(a.factors.values(), default=1.0) >= 0.999
              and abs(a.tolerance.get("voltage_deviation", 0.0)) <= 0.05
              and abs(a.frequency_ratio - 1.0) <= 0.01)
     a.service_factor_at_site = sf if clean else 1.0

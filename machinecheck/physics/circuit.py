@@ -99,7 +99,7 @@ def _branches(z_in: complex, r1: float, x_lr: float, share: float, slip: float):
 
 @lru_cache(maxsize=4096)
 def estimate(power_w: float, voltage_v: float, frequency_hz: float, poles: int,
-             speed_rpm: float, *, current_a: float | None = None,
+             speed_rpm: float, current_a: float | None = None,
              power_factor: float | None = None, efficiency: float | None = None,
              design: str | None = None) -> Circuit:
     """Estimate the equivalent circuit from a three-phase nameplate rating set.

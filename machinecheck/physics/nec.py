@@ -88,7 +88,7 @@ def table_column(motor_voltage_v: float) -> float | None:
 
 
 @functools.lru_cache(maxsize=4096)  # a fleet has few distinct sizes and winding voltages
-def table_current(power_hp: float, motor_voltage_v: float, *, phases: int = 3,
+def table_current(power_hp: float, motor_voltage_v: float, phases: int = 3,
                   synchronous: bool = False, power_factor: float = 1.0) -> tuple[float, float] | None:
     """NEC table full-load current for a motor, and the standard hp it was read at.
 
