@@ -42,6 +42,7 @@ SITE_KEYS = ("id", "name", "frequency", "voltage", "phases", "system", "standard
              "min_efficiency_class")
 DESIGN_LETTERS = ("A", "B", "C", "D", "N", "H")
 INSULATION_CLASSES = ("A", "E", "B", "F", "H", "N", "R")
+_CODE_LETTER_CHOICES = tuple(CODE_LETTERS)
 
 # Limits beyond which a value is taken as a typing error rather than a machine.
 LIMITS = {
@@ -173,6 +174,8 @@ class _Fields:
             raise _TooMany
 
     def unknown_keys(self, table: dict, allowed, prefix="", sub=()) -> None:
+        if _key_set(allowed).issuperset(table):
+            return
         for key in table:
             if key not in allowed:
                 close = difflib.get_close_matches(key, allowed, n=1, cutoff=0.6)
@@ -239,7 +242,7 @@ class _Fields:
                 self.fail(f"{value!r} is not one of {', '.join(choices)}{hint}", prefix + key, sub)
                 return default
             return lookup[norm.upper()]
-        if pattern is not None and not re.fullmatch(pattern, norm):
+        if pattern is not None and not _compiled(pattern).fullmatch(norm):
             self.fail(f"expected {what}, got {value!r}", prefix + key, sub)
             return default
         return norm
@@ -262,6 +265,14 @@ class _Fields:
 
 class _TooMany(Exception):
     pass
+
+
+@functools.lru_cache(maxsize=64)
+def _key_set(allowed: tuple) -> frozenset:
+    return frozenset(allowed)
+
+
+_compiled = functools.lru_cache(maxsize=64)(re.compile)
 
 
 @functools.lru_cache(maxsize=64)
@@ -364,7 +375,7 @@ def _machine(entry, index, name, locator, errors, seen) -> Machine | None:
     description = f.text(entry, "description", default="", what="a description text")
     efficiency_class = f.text(entry, "efficiency_class", choices=EFFICIENCY_CLASSES,
                               what="an IE class")
-    code_letter = f.text(entry, "code_letter", choices=tuple(CODE_LETTERS),
+    code_letter = f.text(entry, "code_letter", choices=_CODE_LETTER_CHOICES,
                          what="a NEMA code letter")
     design_letter = f.text(entry, "design_letter", choices=DESIGN_LETTERS,
                            what="a design letter")
