@@ -3,7 +3,8 @@
     python benchmarks/stages.py            # 3,000 generated machines x 3 sites, best of 7
     python benchmarks/stages.py 1000 3     # size and repeats
 
-Each stage is timed on fresh caches (circuit estimates, site deratings, tolerance figures), as
+Each stage is timed on fresh caches (circuit estimates, deratings, tolerance figures, rounded
+figures, messages), as
 a worker meets them; the best of the repeats is kept, the machines being noisy. See
 docs/performance.md.
 """
@@ -20,15 +21,19 @@ from generate import SITES, catalog
 
 from machinecheck import check, runner, units
 from machinecheck.catalog import catalog_from_data, sites_from_data, tomllib
-from machinecheck.physics import circuit, environment
-from machinecheck.report import renderer
+from machinecheck.physics import circuit, efficiency, environment, nec, unbalance
+from machinecheck.report import data, renderer
+from machinecheck.rules import connection
 
 
 def _fresh_caches() -> None:
-    circuit.estimate.cache_clear()
-    environment.site_derating.cache_clear()
-    check.tolerance_figures.cache_clear()
-    check._STAR_DELTA.clear()
+    for cached in (circuit.estimate, environment.site_derating, check.tolerance_figures,
+                   efficiency.efficiency_class_of, efficiency.minimum_efficiency,
+                   nec.table_current, unbalance.unbalance_derating):
+        cached.cache_clear()
+    for memo in (check._STAR_DELTA, data._TOLERANCE_DICTS, data._R1, data._R2, data._R3,
+                 data._R4, connection._CONNECT):
+        memo.clear()
 
 
 def main() -> None:

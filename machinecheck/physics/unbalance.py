@@ -2,6 +2,7 @@
 
 from __future__ import annotations
 
+import functools
 import math
 
 from ..errors import DomainError
@@ -42,6 +43,7 @@ UNBALANCE_DERATING = ((0.0, 1.0), (0.01, 1.0), (0.015, 0.97), (0.02, 0.95), (0.0
 UNBALANCE_LIMIT = 0.05
 
 
+@functools.lru_cache(maxsize=256)  # one figure a site, asked once a pair
 def unbalance_derating(unbalance: float) -> float:
     """Output factor for a three-phase motor on an unbalanced supply [-].
 
