@@ -4,9 +4,8 @@
     python benchmarks/stages.py 1000 3     # size and repeats
 
 Each stage is timed on fresh caches (circuit estimates, deratings, tolerance figures, rounded
-figures, messages), as
-a worker meets them; the best of the repeats is kept, the machines being noisy. See
-docs/performance.md.
+figures, messages), as a worker meets them; the best of the repeats is kept, the machines being
+noisy. See docs/performance.md.
 """
 
 from __future__ import annotations
