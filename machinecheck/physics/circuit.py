@@ -421,7 +421,7 @@ def solve(c: Circuit, voltage_v: float, frequency_hz: float, load_torque) -> Ope
     # The load torque changes little with slip near synchronous speed, so s = slip_for(asked(s))
     # is a strong contraction (the answer is ~30x nearer than s); secant steps on its residual
     # settle it in a few loads, to 1e-8 of the slip as the bracketed method below.
-    s, previous = slip_for(asked_lo), None
+    s, s_before, residual_before = slip_for(asked_lo), None, None
     for _ in range(12):
         if s is None or not lo < s < hi:
             break
@@ -432,9 +432,9 @@ def solve(c: Circuit, voltage_v: float, frequency_hz: float, load_torque) -> Ope
         if abs(residual) <= 1e-8 * s:
             return operating_point(c, voltage_v, frequency_hz, target, breakdown_point=peak)
         step = target
-        if previous is not None and residual != previous[1]:
-            step = s - residual * (s - previous[0]) / (residual - previous[1])
-        previous = (s, residual)
+        if s_before is not None and residual != residual_before:
+            step = s - residual * (s - s_before) / (residual - residual_before)
+        s_before, residual_before = s, residual
         s = step
     # otherwise (a load torque that jumps or climbs too steeply): bracketed regula falsi
     # narrow the bracket around the small-slip estimate s ~ T R2 / k (T_ind ~ k s / R2)

@@ -84,6 +84,7 @@ def result_dict(a, *, explain: bool = False) -> dict:
     c = a.connection
     lrc = a.locked_rotor_current_a
     code_current = a.code_current_a
+    available, load = a.available_power_w, a.load_power_w
     data = {
         "machine": a.machine.id,
         "site": a.site.id,
@@ -93,8 +94,8 @@ def result_dict(a, *, explain: bool = False) -> dict:
                    "connection": c.name},
         "synchronous_speed_rpm": _R1[a.synchronous_speed_rpm],
         "expected_speed_rpm": r(a.expected_speed_rpm, 1),
-        "available_power_kw": _kilo(a.available_power_w, 2),
-        "load_power_kw": _kilo(a.load_power_w, 2),
+        "available_power_kw": None if available is None else r(available / 1000.0, 2),
+        "load_power_kw": None if load is None else r(load / 1000.0, 2),
         "full_load_current_a": r(a.full_load_current_a, 1),
         "flux_ratio": _R4[a.flux_ratio],
         "findings": [{"code": f.code, "severity": f.severity, "message": f.message}
