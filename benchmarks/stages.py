@@ -56,10 +56,10 @@ def main() -> None:
         tomllib.loads(text)
         keep("tomllib parse (the floor)", time.process_time() - start)
         start = time.process_time()
-        data = runner.parse_piece(text)
+        parsed = runner.parse_piece(text)
         keep("piece parse (rtoml where it reads as tomllib)", time.process_time() - start)
         start = time.process_time()
-        machines = catalog_from_data(data, "generated", text).machines
+        machines = catalog_from_data(parsed, "generated", text).machines
         keep("validation into the model", time.process_time() - start)
         start = time.process_time()
         results = check.assess_all(machines, sites)
@@ -67,7 +67,7 @@ def main() -> None:
         start = time.process_time()
         chunk(results)
         keep("JSON result", time.process_time() - start)
-        del results, machines, data
+        del results, machines, parsed
     work = sum(value for stage, value in best.items() if not stage.startswith("tomllib"))
     print(f"{size} machines x {len(sites)} sites, best of {repeats}, us per pair:")
     for stage, value in best.items():

@@ -14,6 +14,7 @@ from functools import lru_cache
 from types import MappingProxyType
 
 from .errors import DomainError
+from .memo import IdentityMemo
 from .model import Connection, Machine, Rating, Site
 from .physics import circuit as circuit_physics
 from .physics import current as current_physics
@@ -135,14 +136,13 @@ def choose(machine: Machine, site: Site):
     (and, for single-phase machines, the supply voltage) whose V/f is nearest the rated V/f.
     """
     ratings = machine.ratings
-    if len(ratings) == 1 and len(ratings[0].connections) == 1 and (
-            machine.phases == 3 or site.phases == 2):
+    offered = supply_voltages(machine, site)
+    if len(ratings) == 1 and len(ratings[0].connections) == 1 and len(offered) == 1:
         # one rating, one connection, one supply voltage: nothing to choose between
-        rating = ratings[0]
+        rating, (volts, note) = ratings[0], offered[0]
         connection = rating.connections[0]
-        volts, f_ratio = site.voltage_v, site.frequency_hz / rating.frequency_hz
-        reference = connection.reference_voltage(volts / f_ratio)
-        return rating, connection, volts, "", (volts / reference) / f_ratio, reference
+        k, reference = _flux(connection, volts, site.frequency_hz / rating.frequency_hz)
+        return rating, connection, volts, note, k, reference
     matching = [r for r in ratings
                 if in_frequency_band(site.frequency_hz / r.frequency_hz - 1.0, site.standard)]
     candidates = matching or list(ratings)
@@ -150,14 +150,19 @@ def choose(machine: Machine, site: Site):
     for rating in candidates:
         f_ratio = site.frequency_hz / rating.frequency_hz
         for connection in rating.connections:
-            for volts, note in supply_voltages(machine, site):
-                reference = connection.reference_voltage(volts / f_ratio)
-                k = (volts / reference) / f_ratio
+            for volts, note in offered:
+                k, reference = _flux(connection, volts, f_ratio)
                 score = abs(math.log(k)) + 0.001 * abs(math.log(f_ratio))
                 if best is None or score < best[0] - 1e-12:
                     best = (score, rating, connection, volts, note, k, reference)
     _, rating, connection, volts, note, k, reference = best
     return rating, connection, volts, note, k, reference
+
+
+def _flux(connection: Connection, volts: float, f_ratio: float) -> tuple[float, float]:
+    """(flux ratio k, reference voltage) of a connection on ``volts`` at ``f_ratio`` x rated f."""
+    reference = connection.reference_voltage(volts / f_ratio)
+    return (volts / reference) / f_ratio, reference
 
 
 # ----------------------------------------------------------------------------- engine
@@ -603,20 +608,17 @@ def _service_factor(a: Assessment) -> None:
     a.service_factor_at_site = sf if clean else 1.0
 
 
-_STAR_DELTA: dict[int, tuple] = {}  # id(rating) -> (rating, delta, star): names read once
+_STAR_DELTA = IdentityMemo(100_000)  # rating -> (delta, star): names read once a rating
 
 
 def _star_delta_pair(rating: Rating):
-    cached = _STAR_DELTA.get(id(rating))
-    if cached is not None and cached[0] is rating:
-        return cached[1], cached[2]
+    cached = _STAR_DELTA.get(rating)
+    if cached is not None:
+        return cached
     names = {(c.name or "").strip().lower(): c for c in rating.connections}
     delta = next((c for n, c in names.items() if n in DELTA_NAMES), None)
     star = next((c for n, c in names.items() if n in STAR_NAMES), None)
-    if len(_STAR_DELTA) > 100_000:
-        _STAR_DELTA.clear()
-    _STAR_DELTA[id(rating)] = (rating, delta, star)
-    return delta, star
+    return _STAR_DELTA.put(rating, (delta, star))
 
 
 def _star_delta(a: Assessment) -> None:

@@ -112,7 +112,6 @@ def minimum_efficiency(efficiency_class: str, power_kw: float, poles: int,
     raise DomainError(f"efficiency classes are defined at 50 and 60 Hz, got {frequency_hz:g} Hz")
 
 
-@functools.lru_cache(maxsize=4096)
 @functools.lru_cache(maxsize=4096)  # the same rating set meets every site
 def efficiency_class_of(efficiency: float, power_kw: float, poles: int,
                         frequency_hz: float) -> str | None:

@@ -6,6 +6,7 @@ import math
 from types import MappingProxyType
 
 from ..check import SEVERITIES, VERDICTS
+from ..memo import IdentityMemo
 
 
 def _r(value, digits):
@@ -50,28 +51,22 @@ class _Rounded(dict):
 _R1, _R2, _R3, _R4 = (_Rounded(digits) for digits in (1, 2, 3, 4))
 
 
-def _kilo(value, digits):
-    return None if value is None else _r(value / 1000.0, digits)
-
-
-#: id(tolerance mapping) -> (mapping, its output dict): the engine shares one mapping between
-#: every pair with the same figures, so most pairs find theirs here.
-_TOLERANCE_DICTS: dict[int, tuple] = {}
+#: tolerance mapping -> its output dict: the engine shares one mapping between every pair with
+#: the same figures, so most pairs find theirs here.
+_TOLERANCE_DICTS = IdentityMemo()
 
 
 def _tolerance_dict(t) -> dict:
     """The "tolerance" part of a result (shared between results: read it, do not change it)."""
-    kept = _TOLERANCE_DICTS.get(id(t))
-    if kept is not None and kept[0] is t:
-        return kept[1]
+    out = _TOLERANCE_DICTS.get(t)
+    if out is not None:
+        return out
     out = {"standard": t.get("standard"), "basis": t.get("basis"), "zone": t.get("zone"),
            "within": t.get("within"), "voltage_deviation": _r(t.get("voltage_deviation"), 4),
            "frequency_deviation": _r(t.get("frequency_deviation"), 4),
            "combined_variation": _r(t.get("combined_variation"), 4)}
     if type(t) is MappingProxyType:  # read-only, so its output cannot go stale
-        if len(_TOLERANCE_DICTS) >= 10_000:
-            _TOLERANCE_DICTS.clear()
-        _TOLERANCE_DICTS[id(t)] = (t, out)
+        _TOLERANCE_DICTS.put(t, out)
     return out
 
 
@@ -131,7 +126,9 @@ def result_dict(a, *, explain: bool = False) -> dict:
         "head_ratio": r(a.head_ratio, 4),
     }
     if a.machine.is_generator:
-        data["available_apparent_power_kva"] = _kilo(a.available_apparent_power_va, 2)
+        apparent = a.available_apparent_power_va
+        data["available_apparent_power_kva"] = (
+            None if apparent is None else r(apparent / 1000.0, 2))
     if explain:
         data["working"] = list(a.working)
     return data

@@ -2,6 +2,8 @@
 
 from __future__ import annotations
 
+from ..memo import IdentityMemo
+
 
 def check(a) -> None:
     if not a.phases_ok:
@@ -25,20 +27,18 @@ def check(a) -> None:
               f"k = {a.flux_ratio:.3f}): size starters, generators and voltage dip for it")
 
 
-#: id(connection) -> (connection, rating, message): the text is the same at every site
-_CONNECT: dict[int, tuple] = {}
+#: connection -> (its rating, message): the text is the same at every site
+_CONNECT = IdentityMemo()
 
 
 def _connect(c, rating) -> str:
-    kept = _CONNECT.get(id(c))
-    if kept is not None and kept[0] is c and kept[1] is rating:
-        return kept[2]
+    kept = _CONNECT.get(c)
+    if kept is not None and kept[0] is rating:
+        return kept[1]
     others = ", ".join(
         f"{x.name or 'unnamed'} {x.voltage_min_v:g} V" for x in rating.connections if x is not c)
     current = f", {c.current_a:.1f} A rated" if c.current_a else ""
     message = (f"connect {c.name or 'for'} {c.voltage_min_v:g} V{current} (not {others}); set "
                "overloads for this connection's current")
-    if len(_CONNECT) >= 10_000:
-        _CONNECT.clear()
-    _CONNECT[id(c)] = (c, rating, message)
+    _CONNECT.put(c, (rating, message))
     return message
