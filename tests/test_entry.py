@@ -55,3 +55,64 @@ def test_anything_else_goes_to_click(monkeypatch, capsys, args):
     expected = CliRunner().invoke(click_main, args, prog_name="machinecheck")
     assert code == expected.exit_code
     assert (out + err).strip() == expected.output.strip()
+
+
+def _run(monkeypatch, args):
+    """entry.run() in-process: the status it leaves with, os._exit caught."""
+    monkeypatch.setattr(sys, "argv", ["machinecheck", *args])
+
+    class Left(Exception):
+        pass
+
+    def leave(code):
+        raise Left(code)
+
+    monkeypatch.setattr(entry.os, "_exit", leave)
+    with pytest.raises(Left) as left:
+        entry.run()
+    return left.value.args[0]
+
+
+def test_run_leaves_with_the_status_of_the_command(monkeypatch, capsys):
+    assert _run(monkeypatch, ["speed", "--poles", "4", "--frequency", "50"]) == 0
+    assert "1500" in capsys.readouterr().out
+    assert _run(monkeypatch, ["speed", "--poles", "4"]) == 2  # click's usage error
+    assert _run(monkeypatch, ["check"]) == 1  # the demo has incompatible pairs
+
+
+def test_run_turns_a_message_exit_into_status_1(monkeypatch, capsys):
+    def fail():
+        raise SystemExit("no such thing")
+
+    monkeypatch.setattr(entry, "main", fail)
+    assert _run(monkeypatch, []) == 1
+    assert capsys.readouterr().err == "no such thing\n"
+
+
+def test_run_leaves_the_usual_way_when_a_stream_cannot_be_flushed(monkeypatch):
+    class Closed:
+        def write(self, text):
+            return len(text)
+
+        def flush(self):
+            raise BrokenPipeError
+
+    monkeypatch.setattr(entry, "main", lambda: None)
+    monkeypatch.setattr(sys, "stdout", Closed())
+    monkeypatch.setattr(entry.os, "_exit", None)  # must not be reached
+    with pytest.raises(SystemExit) as left:
+        entry.run()
+    assert left.value.code == 0
+
+
+def test_the_console_script_and_module_exit_with_the_status(tmp_path):
+    import subprocess
+
+    out = tmp_path / "report.json"
+    done = subprocess.run([sys.executable, "-m", "machinecheck", "check", "--format", "json",
+                           "--output", str(out)], capture_output=True, text=True)
+    assert done.returncode == 1  # the demo has incompatible pairs
+    assert "wrote" in done.stderr and out.read_text().endswith("]}\n")
+    done = subprocess.run([sys.executable, "-m", "machinecheck", "speed", "--poles", "4",
+                           "--frequency", "50"], capture_output=True, text=True)
+    assert done.returncode == 0 and "1500" in done.stdout
