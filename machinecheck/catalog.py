@@ -7,7 +7,6 @@ the machine or site id and the key; all problems of one file are gathered (up to
 
 from __future__ import annotations
 
-import difflib
 import functools
 import math
 import os
@@ -178,7 +177,7 @@ class _Fields:
             return
         for key in table:
             if key not in allowed:
-                close = difflib.get_close_matches(key, allowed, n=1, cutoff=0.6)
+                close = closest(key, allowed)
                 hint = f" (did you mean {close[0]!r}?)" if close else ""
                 expected = "" if close else f"; allowed keys: {', '.join(allowed)}"
                 self.fail(f"unknown key {key!r}{hint}{expected}", prefix + key, sub)
@@ -237,7 +236,7 @@ class _Fields:
         if choices is not None:
             lookup = _choice_lookup(tuple(choices))
             if norm.upper() not in lookup:
-                close = difflib.get_close_matches(norm, choices, n=1, cutoff=0.6)
+                close = closest(norm, choices)
                 hint = f" (did you mean {close[0]!r}?)" if close else ""
                 self.fail(f"{value!r} is not one of {', '.join(choices)}{hint}", prefix + key, sub)
                 return default
@@ -265,6 +264,16 @@ class _Fields:
 
 class _TooMany(Exception):
     pass
+
+
+def closest(word: str, choices) -> list[str]:
+    """The one choice nearest ``word`` (difflib, cutoff 0.6), or none: the hint of an error.
+
+    difflib is imported here, not with the module: only a misspelt input needs it.
+    """
+    import difflib
+
+    return difflib.get_close_matches(word, list(choices), n=1, cutoff=0.6)
 
 
 @functools.lru_cache(maxsize=64)

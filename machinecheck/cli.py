@@ -194,11 +194,11 @@ def _select(items, wanted, what):
     ids = {item.id for item in items}
     missing = [w for w in wanted if w not in ids]
     if missing:
-        import difflib
+        from .catalog import closest
 
         hints = []
         for name in missing:
-            close = difflib.get_close_matches(name, sorted(ids), n=1)
+            close = closest(name, sorted(ids))
             hints.append(f"{name!r}" + (f" (did you mean {close[0]!r}?)" if close else ""))
         raise InputError(f"no {what} with id {', '.join(hints)}", key=f"--{what}")
     chosen = set(wanted)
@@ -211,7 +211,6 @@ def write_output(text, path: str, inputs) -> None:
     Never onto an input file; nothing is left behind on error or Ctrl-C.
     """
     import contextlib
-    import tempfile
 
     target = os.path.abspath(path)
     folder = os.path.dirname(target) or "."
@@ -223,7 +222,7 @@ def write_output(text, path: str, inputs) -> None:
         if source and os.path.exists(source) and os.path.exists(target) and os.path.samefile(
                 source, target):
             raise InputError("refusing to overwrite an input file with the output", file=path)
-    handle, temporary = tempfile.mkstemp(prefix=".machinecheck-", suffix=".tmp", dir=folder)
+    handle, temporary = _new_file(folder)
     try:
         with os.fdopen(handle, "wb") as stream:
             for piece in [text] if isinstance(text, str) else text:
@@ -239,6 +238,20 @@ def write_output(text, path: str, inputs) -> None:
         with contextlib.suppress(OSError):
             os.unlink(temporary)
         raise
+
+
+def _new_file(folder: str) -> tuple[int, str]:
+    """A new hidden file in ``folder``, opened for writing by this user only: (fd, path).
+
+    As tempfile.mkstemp, without importing tempfile (and random, shutil) into every run.
+    """
+    for _ in range(100):
+        path = os.path.join(folder, f".machinecheck-{os.getpid()}-{os.urandom(4).hex()}.tmp")
+        try:
+            return os.open(path, os.O_WRONLY | os.O_CREAT | os.O_EXCL, 0o600), path
+        except FileExistsError:
+            continue
+    raise InputError("could not create a temporary file beside the output", file=folder)
 
 
 def _machine_options(func):

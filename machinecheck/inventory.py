@@ -10,11 +10,10 @@ TOML catalog parses to, and go through the same validation; errors name the row 
 from __future__ import annotations
 
 import csv
-import difflib
 import io
 import re
 
-from .catalog import MACHINE_KEYS, RATING_KEYS, Locator, catalog_from_data, read_text
+from .catalog import MACHINE_KEYS, RATING_KEYS, Locator, catalog_from_data, closest, read_text
 from .errors import InputError, InputErrors
 
 #: Machine-level columns (the same on every row of one machine).
@@ -80,7 +79,7 @@ def read_inventory(path) -> tuple[dict, Locator, str]:
     header = [_column_name(c) for c in rows[0]]
     for position, column in enumerate(header):
         if column not in COLUMNS:
-            close = difflib.get_close_matches(column, COLUMNS, n=1, cutoff=0.6)
+            close = closest(column, COLUMNS)
             hint = f" (did you mean {close[0]!r}?)" if close else ""
             errors.append(InputError(f"unknown column{hint}; columns are named like the TOML "
                                      "keys (see docs/format.md)", file=name, line=1,

@@ -290,3 +290,17 @@ def test_narrow_terminal_lists_findings_below_the_table():
     assert "K-111 (incompatible):" in narrow
     assert max(len(line.rstrip()) for line in narrow.splitlines()) <= 80
     assert "incompatible" in narrow and "…" not in narrow.split("K-111 (")[0]
+
+
+def test_output_temporary_files_are_new_and_private(tmp_path):
+    import os
+    import stat
+
+    from machinecheck.cli import _new_file
+
+    (fd1, one), (fd2, two) = _new_file(str(tmp_path)), _new_file(str(tmp_path))
+    os.close(fd1)
+    os.close(fd2)
+    assert one != two and os.path.dirname(one) == str(tmp_path)
+    assert os.path.basename(one).startswith(".machinecheck-")
+    assert stat.S_IMODE(os.stat(one).st_mode) == 0o600
