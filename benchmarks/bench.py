@@ -59,31 +59,34 @@ def tree_peak(cmd, env=None):
     return peak
 
 
-def timed(cmd, repeat=3, env=None, fresh=None):
-    """Median wall time of a command, and the peak RSS (kB) of its last run.
+def run_once(cmd, env=None, fresh=None):
+    """Wall time of one run of a command, and its peak RSS (kB).
 
-    ``fresh``: a file the command writes, removed before each run, so that every run writes a
+    ``fresh``: a file the command writes, removed before the run, so that every run writes a
     new report as the first does (replacing a large file costs the kernel more, see
     docs/performance.md)."""
-    times = []
-    peak = 0
-    for _ in range(repeat):
-        if fresh is not None and os.path.exists(fresh):
-            os.remove(fresh)
-        start = time.perf_counter()
-        proc = subprocess.run(["/usr/bin/time", "-f", "%M", *cmd], capture_output=True, text=True,
-                              env=env) if os.path.exists("/usr/bin/time") else subprocess.run(
-                                  cmd, capture_output=True, text=True, env=env)
-        times.append(time.perf_counter() - start)
-        if proc.returncode not in (0, 1):
-            raise SystemExit(f"command failed ({proc.returncode}): {' '.join(cmd)}\n{proc.stderr}")
-        tail = proc.stderr.strip().splitlines()[-1:] if proc.stderr else []
-        if tail and tail[0].isdigit():
-            peak = int(tail[0])
-    return statistics.median(times), peak
+    if fresh is not None and os.path.exists(fresh):
+        os.remove(fresh)
+    start = time.perf_counter()
+    proc = subprocess.run(["/usr/bin/time", "-f", "%M", *cmd], capture_output=True, text=True,
+                          env=env) if os.path.exists("/usr/bin/time") else subprocess.run(
+                              cmd, capture_output=True, text=True, env=env)
+    seconds = time.perf_counter() - start
+    if proc.returncode not in (0, 1):
+        raise SystemExit(f"command failed ({proc.returncode}): {' '.join(cmd)}\n{proc.stderr}")
+    tail = proc.stderr.strip().splitlines()[-1:] if proc.stderr else []
+    return seconds, int(tail[0]) if tail and tail[0].isdigit() else 0
+
+
+def timed(cmd, repeat=3, env=None):
+    """Median wall time of a command, and the peak RSS (kB) of its last run."""
+    runs = [run_once(cmd, env) for _ in range(repeat)]
+    return statistics.median(seconds for seconds, _ in runs), runs[-1][1]
 
 
 def fleet(size, folder, repeat):
+    """Parse and check runs taken in turn, so that both meet the same machine: the median of
+    the per-turn ratios, their range, the median check time and the peak memory."""
     path = os.path.join(folder, f"fleet-{size}.toml")
     with open(path, "w", encoding="utf-8") as handle:
         handle.write(catalog(size))
@@ -93,10 +96,15 @@ def fleet(size, folder, repeat):
     out = os.path.join(folder, f"out-{size}.json")
     parse = [PY, "-c", f"import tomllib; tomllib.load(open({path!r}, 'rb'))"]
     check = [*CLI, "check", path, "--sites", sites, "--format", "json", "--output", out]
-    t_parse, _ = timed(parse, repeat)
-    t_check, peak = timed(check, repeat, fresh=out)
+    ratios, checks, peak = [], [], 0
+    for _ in range(repeat):
+        t_parse, _ = run_once(parse)
+        t_check, peak = run_once(check, fresh=out)
+        ratios.append(t_check / t_parse)
+        checks.append(t_check)
     total = tree_peak(check) if os.path.exists("/proc/self/smaps_rollup") else 0
-    return t_parse, t_check, peak, total
+    return statistics.median(ratios), (min(ratios), max(ratios)), statistics.median(checks), \
+        peak, total
 
 
 def main():
@@ -104,7 +112,7 @@ def main():
     parser.add_argument("--smoke", action="store_true")
     args = parser.parse_args()
     sizes = (300, 3000) if args.smoke else (10_000, 100_000)
-    repeat = 1 if args.smoke else 3
+    repeats = {300: 1, 3000: 1} if args.smoke else {10_000: 5, 100_000: 3}
     with tempfile.TemporaryDirectory() as folder:
         t_bare, _ = timed([PY, "-c", "pass"], 5)
         t_lookup, _ = timed([*CLI, "speed", "--poles", "4", "--frequency", "50"], 5)
@@ -115,12 +123,13 @@ def main():
         print(f"demo table: {t_demo:.2f} s (target < 1 s)")
         results = []
         for size in sizes:
-            t_parse, t_check, peak, total = fleet(size, folder, repeat)
+            ratio, (low, high), t_check, peak, total = fleet(size, folder, repeats[size])
             pairs = size * 3
             results.append((size, t_check))
-            print(f"fleet {size} machines x 3 sites: check = {t_check / t_parse:.2f} x tomllib "
-                  f"parse alone (target <= 2x); peak memory {peak / 1024:.0f} MB (largest "
-                  f"process), {total / 1024:.0f} MB (all processes, PSS); "
+            print(f"fleet {size} machines x 3 sites: check = {ratio:.2f} x tomllib parse alone "
+                  f"(median of {repeats[size]} turns, {low:.2f}-{high:.2f}; target <= 2x); "
+                  f"peak memory {peak / 1024:.0f} MB (largest process), "
+                  f"{total / 1024:.0f} MB (all processes, PSS); "
                   f"{size / t_check:,.0f} machines/s ({pairs / t_check:,.0f} pairs/s)")
         (s0, t0), (s1, t1) = results
         print(f"scaling {s0} -> {s1}: time x{t1 / t0:.1f} for size x{s1 / s0:.0f}")
