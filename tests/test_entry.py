@@ -75,7 +75,7 @@ def _run(monkeypatch, args):
 
 def test_run_leaves_with_the_status_of_the_command(monkeypatch, capsys):
     assert _run(monkeypatch, ["speed", "--poles", "4", "--frequency", "50"]) == 0
-    assert "1500" in capsys.readouterr().out
+    assert "1500" in capsys.readouterr().out  # n_s = 120 f / p: standards.md section 9 table
     assert _run(monkeypatch, ["speed", "--poles", "4"]) == 2  # click's usage error
     assert _run(monkeypatch, ["check"]) == 1  # the demo has incompatible pairs
 
@@ -115,4 +115,4 @@ def test_the_console_script_and_module_exit_with_the_status(tmp_path):
     assert "wrote" in done.stderr and out.read_text().endswith("]}\n")
     done = subprocess.run([sys.executable, "-m", "machinecheck", "speed", "--poles", "4",
                            "--frequency", "50"], capture_output=True, text=True)
-    assert done.returncode == 0 and "1500" in done.stdout
+    assert done.returncode == 0 and "1500" in done.stdout  # n_s = 120 f / p, as above
