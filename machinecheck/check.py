@@ -91,7 +91,7 @@ class Assessment:
     locked_rotor_current_a: tuple[float, float] | None = None
     locked_rotor_basis: str | None = None
     code_current_a: float | None = None
-    code_current_hp: float | None = None
+    code_current_hp: int | float | None = None  # a whole table size stays an int
     service_factor: float = 1.0
     service_factor_at_site: float = 1.0
     star_delta_possible: bool | None = None
@@ -146,7 +146,7 @@ def choose(machine: Machine, site: Site):
     matching = [r for r in ratings
                 if in_frequency_band(site.frequency_hz / r.frequency_hz - 1.0, site.standard)]
     candidates = matching or list(ratings)
-    best = None
+    best: tuple | None = None
     for rating in candidates:
         f_ratio = site.frequency_hz / rating.frequency_hz
         for connection in rating.connections:
@@ -155,6 +155,7 @@ def choose(machine: Machine, site: Site):
                 score = abs(math.log(k)) + 0.001 * abs(math.log(f_ratio))
                 if best is None or score < best[0] - 1e-12:
                     best = (score, rating, connection, volts, note, k, reference)
+    assert best is not None  # every rating has a connection and every site a voltage
     _, rating, connection, volts, note, k, reference = best
     return rating, connection, volts, note, k, reference
 
@@ -174,6 +175,7 @@ def assess(machine: Machine, site: Site, *, explain: bool = False) -> Assessment
     f_dev = f_ratio - 1.0
     rerated = not in_frequency_band(f_dev, site.standard)
     poles = machine.poles
+    assert poles is not None  # the catalog gives every machine its poles
     n_s = speed_physics.synchronous_speed(site.frequency_hz, poles)
     phases_ok = machine.phases == 1 or site.phases == 3
 
@@ -385,7 +387,7 @@ def _motor_speed_and_load(a: Assessment, w) -> None:
     load = m.load
     if load is not None:
         t0 = load.torque_nm if load.torque_nm is not None else speed_physics.shaft_torque(
-            load.power_w, n_ref)
+            load.power_w, n_ref)  # type: ignore[arg-type]  # the catalog gives one of the two
         curve = (load.type, t0, n_ref)
     elif a.available_power_w:
         # no load given: the motor is taken to deliver its available output at any speed
@@ -403,19 +405,19 @@ def _motor_speed_and_load(a: Assessment, w) -> None:
     elif rating.speed_rpm is not None and t_rated and load_torque is not None:
         n_rule, tau = _rule_speed(a, curve, load_torque, t_rated, w)
         a.rule_speed_rpm = n_rule
-        a.circuit = _estimate_circuit(a)
-        if a.circuit is None:
+        circuit = a.circuit = _estimate_circuit(a)
+        if circuit is None:
             a.operating_point_basis = "slip rule"
             a.slip_model_valid = (0.8 <= a.flux_ratio <= 1.2) and (tau is None or tau <= 1.5)
             n = n_rule
             a.stalled = n is None
         else:
             a.operating_point_basis = "equivalent circuit"
-            n = _circuit_point(a, load_torque, w)
+            n = _circuit_point(a, circuit, load_torque, w)
         if n is not None:
             a.expected_speed_rpm = n
             a.speed_band_rpm = 0.2 * (n_s - n)  # NEMA MG 1 / IEC 60034-1: slip +-20 %
-    if load is not None and a.expected_speed_rpm is not None:
+    if load is not None and load_torque is not None and a.expected_speed_rpm is not None:
         n = a.expected_speed_rpm
         ratio = n / n_ref
         a.load_speed_ratio = ratio
@@ -435,7 +437,7 @@ def _rule_speed(a: Assessment, curve, load_torque, t_rated: float, w):
     """Running speed by the linear slip rule (the cross-check): (speed or None, T / T_rated)."""
     rating = a.rating
     n_s = a.synchronous_speed_rpm
-    slip_rated = 120.0 * rating.frequency_hz / a.poles - rating.speed_rpm
+    slip_rated = 120.0 * rating.frequency_hz / a.poles - rating.speed_rpm  # type: ignore[operator]  # the caller checked it
     k = a.flux_ratio
     load_type, t0, n0 = curve
     n = speed_physics.slip_rule_speed(n_s, slip_rated, t_rated, k, t0,
@@ -468,9 +470,9 @@ def _estimate_circuit(a: Assessment):
         return None
 
 
-def _circuit_point(a: Assessment, load_torque, w):
+def _circuit_point(a: Assessment, circuit: circuit_physics.Circuit, load_torque, w):
     """Solve the circuit at the site; fills the operating figures and returns the speed."""
-    circuit, site = a.circuit, a.site
+    site = a.site
     op = circuit_physics.solve(circuit, a.supply_voltage_v, site.frequency_hz, load_torque)
     if w is not None:
         w.append(f"equivalent circuit (per phase, star, at {circuit.frequency_hz:g} Hz): "
@@ -513,7 +515,8 @@ def _motor_current(a: Assessment, w) -> None:
     power_ratio = output / rating.power_w if rating.power_w else 1.0
     if a.load_power_w is not None and c.current_a and a.operating_current_a is None:
         a.operating_current_a = current_physics.current_at_site(
-            c.current_a, a.rated_voltage_v, a.supply_voltage_v, a.load_power_w / rating.power_w)
+            c.current_a, a.rated_voltage_v, a.supply_voltage_v,
+            a.load_power_w / rating.power_w)  # type: ignore[operator]  # a motor has its output
     if eta and pf and rating.power_w:
         a.formula_current_a = current_physics.full_load_current(
             output, a.supply_voltage_v, eta, pf, phases)
@@ -643,6 +646,7 @@ def _generator(a: Assessment, w) -> None:
                  f"{a.rated_voltage_v:.0f} x {a.frequency_ratio:.3f} = "
                  f"{a.rated_voltage_v * a.frequency_ratio:.0f} V")
         if a.available_apparent_power_va is not None:
-            w.append(f"available = {a.rated_apparent_power_va / 1000:.1f} kVA x "
+            rated_va: float = a.rated_apparent_power_va  # type: ignore[assignment]  # as available
+            w.append(f"available = {rated_va / 1000:.1f} kVA x "
                      f"{a.combined_factor:.3f} = {a.available_apparent_power_va / 1000:.1f} kVA; "
                      f"I = S / (sqrt(3) V) = {a.full_load_current_a:.1f} A")

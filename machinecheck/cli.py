@@ -11,7 +11,7 @@ import sys
 
 import click
 
-from . import __version__
+from . import __version__, build_kind
 from .errors import InputError, InputErrors, MachinecheckError
 from .report import FORMATS
 
@@ -62,7 +62,8 @@ def _report_errors(func):
 
 
 @click.group(context_settings={"help_option_names": ["-h", "--help"], "max_content_width": 100})
-@click.version_option(__version__, "--version", prog_name="machinecheck")
+@click.version_option(__version__, "--version", prog_name="machinecheck",
+                      message=f"%(prog)s, version %(version)s ({build_kind()})")
 def main():
     """Check motor and generator nameplates against site supplies.
 

@@ -48,7 +48,7 @@ class Rating:
     power_factor: float | None = None
     efficiency: float | None = None
     service_factor: float | None = None
-    locked_rotor_current_a: float | None = None
+    locked_rotor_current_a: tuple[float, ...] | None = None  # one per connection, or one
     starting_current_ratio: float | None = None
     line: int | None = None
 

@@ -3,7 +3,7 @@ import json
 import pytest
 from click.testing import CliRunner
 
-from machinecheck import __version__
+from machinecheck import __version__, build_kind
 from machinecheck.cli import main
 
 ENV = {"NO_COLOR": "1", "COLUMNS": "120"}
@@ -17,6 +17,7 @@ def test_version():
     result = run("--version")
     assert result.exit_code == 0
     assert __version__ in result.output
+    assert f"({build_kind()})" in result.output  # which build this install is
 
 
 def test_demo_check_table():
