@@ -114,6 +114,12 @@ def main():
     sizes = (300, 3000) if args.smoke else (10_000, 100_000)
     repeats = {300: 1, 3000: 1} if args.smoke else {10_000: 5, 100_000: 3}
     with tempfile.TemporaryDirectory() as folder:
+        # every command runs in the scratch folder: "python -m machinecheck" started in the
+        # project's root would import the sources there (pure Python, compiled to bytecode
+        # again on every run where PYTHONDONTWRITEBYTECODE is set), not the installed package
+        os.chdir(folder)
+        build = subprocess.run([*CLI, "--version"], capture_output=True, text=True).stdout
+        print(f"measuring {build.strip()} ({sys.executable})")
         t_bare, _ = timed([PY, "-c", "pass"], 5)
         t_lookup, _ = timed([*CLI, "speed", "--poles", "4", "--frequency", "50"], 5)
         print(f"lookup: speed --poles 4 --frequency 50 = {t_lookup / t_bare:.1f} x bare python "
