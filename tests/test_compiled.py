@@ -1,13 +1,15 @@
 """The compiled engine (setup.py, mypyc) reports exactly what its Python sources report.
 
 mypyc enforces the annotations it compiles (a float-typed value becomes a C double, so an int
-there turns into a float, and a wrong annotation is a TypeError): each report is made twice,
-by the installed package and by the sources beside these tests, and compared byte for byte.
-Skipped where the installed package is not compiled (an editable or MACHINECHECK_PURE install).
+there turns into a float, and a wrong annotation is a TypeError): the compiled modules must
+pass mypy, and each report is made twice, by the installed package and by the sources beside
+these tests, and compared byte for byte (skipped where the installed package is not compiled:
+an editable or MACHINECHECK_PURE install).
 """
 
 from __future__ import annotations
 
+import ast
 import os
 import subprocess
 import sys
@@ -20,8 +22,28 @@ ROOT = os.path.dirname(os.path.dirname(os.path.abspath(__file__)))
 sys.path.insert(0, os.path.join(ROOT, "benchmarks"))
 from generate import SITES, catalog  # noqa: E402
 
-pytestmark = pytest.mark.skipif(build_kind() != "compiled engine",
-                                reason="the installed engine is not compiled")
+compiled_only = pytest.mark.skipif(build_kind() != "compiled engine",
+                                   reason="the installed engine is not compiled")
+
+
+def _compiled_modules() -> list[str]:
+    """setup.py's COMPILED list, read without running setup.py."""
+    with open(os.path.join(ROOT, "setup.py"), encoding="utf-8") as handle:
+        tree = ast.parse(handle.read())
+    for node in tree.body:
+        if isinstance(node, ast.Assign) and getattr(node.targets[0], "id", None) == "COMPILED":
+            return ast.literal_eval(node.value)
+    raise AssertionError("setup.py has no COMPILED list")
+
+
+def test_compiled_modules_type_check(tmp_path):
+    """mypyc compiles only what mypy accepts; otherwise the install falls back to pure Python."""
+    pytest.importorskip("mypy")
+    modules = _compiled_modules()
+    assert "machinecheck/check.py" in modules and len(modules) >= 20
+    done = subprocess.run([sys.executable, "-m", "mypy", "--cache-dir", str(tmp_path), *modules],
+                          cwd=ROOT, capture_output=True, text=True, timeout=300)
+    assert done.returncode == 0, done.stdout + done.stderr
 
 
 def _run(args, folder, *, pure: bool):
@@ -34,6 +56,7 @@ def _run(args, folder, *, pure: bool):
     return done.returncode, done.stdout, done.stderr
 
 
+@compiled_only
 def test_sources_are_the_pure_build(tmp_path):
     code, out, _ = _run(["--version"], tmp_path, pure=True)
     assert code == 0 and b"(pure Python)" in out
@@ -64,11 +87,13 @@ CASES = {
 }
 
 
+@compiled_only
 @pytest.mark.parametrize("case", CASES)
 def test_same_report(case, fleet):
     assert _run(CASES[case], fleet, pure=False) == _run(CASES[case], fleet, pure=True)
 
 
+@compiled_only
 def test_same_fleet_file_from_workers(fleet):
     """The JSON report to a file: workers parse and check pieces of the catalog text."""
     reports = []
