@@ -61,9 +61,16 @@ def _report_errors(func):
     return wrapper
 
 
+def _show_version(ctx, _param, value) -> None:
+    # the build is looked up only when asked: finding it costs ~4 ms, every run would pay it
+    if value and not ctx.resilient_parsing:
+        click.echo(f"machinecheck, version {__version__} ({build_kind()})")
+        ctx.exit()
+
+
 @click.group(context_settings={"help_option_names": ["-h", "--help"], "max_content_width": 100})
-@click.version_option(__version__, "--version", prog_name="machinecheck",
-                      message=f"%(prog)s, version %(version)s ({build_kind()})")
+@click.option("--version", is_flag=True, expose_value=False, is_eager=True,
+              callback=_show_version, help="Show the version and the build, and exit.")
 def main():
     """Check motor and generator nameplates against site supplies.
 
