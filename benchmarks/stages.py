@@ -18,8 +18,10 @@ import time
 sys.path.insert(0, os.path.dirname(__file__))
 from generate import SITES, catalog
 
-from machinecheck import check, runner, units
-from machinecheck.catalog import catalog_from_data, sites_from_data, tomllib
+from machinecheck import fleet as runner
+from machinecheck.engine import check
+from machinecheck.inputs import units
+from machinecheck.inputs.catalog import catalog_from_data, sites_from_data, tomllib
 from machinecheck.physics import circuit, efficiency, environment, nec, unbalance
 from machinecheck.report import data, renderer
 from machinecheck.rules import connection

@@ -1,3 +1,3 @@
-from .entry import run
+from .cli import main
 
-run()
+main(prog_name="machinecheck")

@@ -1,6 +1,6 @@
 """Build machines and sites for tests through the same validation as the files."""
 
-from machinecheck.catalog import catalog_from_data, sites_from_data
+from machinecheck.inputs.catalog import catalog_from_data, sites_from_data
 
 
 def machine(rating=None, **fields):

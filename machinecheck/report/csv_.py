@@ -5,8 +5,8 @@ from __future__ import annotations
 import csv
 import io
 
-from . import CAUTION
-from .data import result_dict
+from ..report import CAUTION
+from ..report.data import result_dict
 
 COLUMNS = ("machine", "site", "verdict", "rating_frequency_hz", "rating_voltage_v", "connection",
            "synchronous_speed_rpm", "expected_speed_rpm", "rated_power_kw", "available_power_kw",

@@ -5,7 +5,7 @@ from __future__ import annotations
 import math
 from types import MappingProxyType
 
-from ..check import SEVERITIES, VERDICTS
+from ..engine.check import SEVERITIES, VERDICTS
 from ..memo import IdentityMemo
 
 

@@ -10,9 +10,9 @@ from html import escape
 
 from .. import __version__
 from ..physics import tolerance
-from . import CAUTION
-from .data import SITE_COLUMNS, by_site, site_row, summary_counts, worst_first
-from .matrix import verdict_matrix
+from ..report import CAUTION
+from ..report.data import SITE_COLUMNS, by_site, site_row, summary_counts, worst_first
+from ..report.matrix import verdict_matrix
 
 _CSS = """
 body{font-family:system-ui,Segoe UI,Helvetica,Arial,sans-serif;margin:2em;color:#111;

@@ -11,8 +11,8 @@ from __future__ import annotations
 import orjson
 
 from .. import __version__
-from . import CAUTION
-from .data import result_dict
+from ..report import CAUTION
+from ..report.data import result_dict
 
 SEPARATOR = ",\n"
 _SEPARATOR = SEPARATOR.encode()

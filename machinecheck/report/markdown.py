@@ -2,9 +2,9 @@
 
 from __future__ import annotations
 
-from . import CAUTION
-from .data import SITE_COLUMNS, by_site, driving_findings, site_row, summary_counts, worst_first
-from .matrix import verdict_matrix
+from ..report import CAUTION
+from ..report.data import SITE_COLUMNS, by_site, driving_findings, site_row, summary_counts, worst_first
+from ..report.matrix import verdict_matrix
 
 
 def cell(text) -> str:

@@ -5,9 +5,9 @@ from __future__ import annotations
 import io
 import os
 
-from . import CAUTION
-from .data import by_site, driving_findings, number, output_text, summary_counts, worst_first
-from .matrix import verdict_matrix
+from ..report import CAUTION
+from ..report.data import by_site, driving_findings, number, output_text, summary_counts, worst_first
+from ..report.matrix import verdict_matrix
 
 #: Terminal width under which findings are listed below each site's table.
 NARROW_WIDTH = 100

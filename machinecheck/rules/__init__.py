@@ -3,7 +3,7 @@
 Adding a check means adding a rule here, not growing the engine.
 """
 
-from . import (
+from ..rules import (
     connection,
     current,
     efficiency,

@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-from ..check import RERATING_RANGE
+from ..engine.check import RERATING_RANGE
 
 #: Flux-ratio thresholds (per unit) for a re-rated machine.
 OVERFLUX_WARN, OVERFLUX_LIMIT = 1.05, 1.10

@@ -9,9 +9,9 @@ from helpers import machine, site
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-from machinecheck.catalog import catalog_from_data, sites_from_data
-from machinecheck.check import VERDICTS, assess
+from machinecheck.engine.check import VERDICTS, assess
 from machinecheck.errors import MachinecheckError
+from machinecheck.inputs.catalog import catalog_from_data, sites_from_data
 from machinecheck.physics import current, speed
 from machinecheck.report.data import result_dict
 
@@ -191,7 +191,7 @@ def test_catalog_round_trips_through_a_csv_inventory(machine_data):
     # Whatever a TOML catalog accepts, its CSV form gives back the same machines.
     import dataclasses
 
-    from machinecheck.inventory import load_inventory, to_csv
+    from machinecheck.inputs.inventory import load_inventory, to_csv
 
     try:
         machines = catalog_from_data({"machine": [machine_data]}, "gen").machines
@@ -207,8 +207,8 @@ def test_catalog_round_trips_through_a_csv_inventory(machine_data):
     assert [dataclasses.replace(m, source=None) for m in back] == [
         dataclasses.replace(m, source=None) for m in machines]
     # and written as TOML, the same again
-    from machinecheck.catalog import tomllib
-    from machinecheck.inventory import to_toml
+    from machinecheck.inputs.catalog import tomllib
+    from machinecheck.inputs.inventory import to_toml
 
     again = catalog_from_data(tomllib.loads(to_toml({"machine": [machine_data]})), "gen").machines
     assert again == machines

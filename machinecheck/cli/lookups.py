@@ -7,7 +7,7 @@ same functions, so both give the same lines.
 
 from __future__ import annotations
 
-from .errors import InputError, MachinecheckError
+from ..errors import InputError, MachinecheckError
 
 
 def _number_or_text(text):
@@ -18,7 +18,7 @@ def _number_or_text(text):
 
 
 def _value(text, kind, option):
-    from . import units
+    from ..inputs import units
 
     try:
         return units.parse(_number_or_text(text), kind)
@@ -28,7 +28,7 @@ def _value(text, kind, option):
 
 def speed_lines(poles=None, frequency=None, rated_speed=None, rated_frequency=None) -> list[str]:
     """Synchronous speed, and the slip-adjusted speed at a new frequency."""
-    from .physics import speed as sp
+    from ..physics import speed as sp
 
     f = _value(frequency, "frequency", "--frequency")
     f_rated = _value(rated_frequency, "frequency", "--rated-frequency") if rated_frequency else f
@@ -60,7 +60,7 @@ def speed_lines(poles=None, frequency=None, rated_speed=None, rated_frequency=No
 
 def poles_lines(speed_text, frequency) -> list[str]:
     """Pole count, synchronous speed and slip from a nameplate speed."""
-    from .physics import speed as sp
+    from ..physics import speed as sp
 
     n = _value(speed_text, "speed", "--speed")
     f = _value(frequency, "frequency", "--frequency")
@@ -75,7 +75,7 @@ def poles_lines(speed_text, frequency) -> list[str]:
 
 def current_lines(power, voltage, phases="3", efficiency=None, power_factor=None) -> list[str]:
     """Full-load current from output, voltage, efficiency and power factor."""
-    from .physics import current as cp
+    from ..physics import current as cp
 
     volts = _value(voltage, "voltage", "--voltage")
     phase_count = int(phases)

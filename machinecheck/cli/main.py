@@ -11,9 +11,9 @@ import sys
 
 import click
 
-from . import __version__, build_kind
-from .errors import InputError, InputErrors, MachinecheckError
-from .report import FORMATS
+from .. import __version__
+from ..errors import InputError, InputErrors, MachinecheckError
+from ..report import FORMATS
 
 EXIT_OK, EXIT_PROBLEM, EXIT_INPUT = 0, 1, 2
 
@@ -64,7 +64,7 @@ def _report_errors(func):
 def _show_version(ctx, _param, value) -> None:
     # the build is looked up only when asked: finding it costs ~4 ms, every run would pay it
     if value and not ctx.resilient_parsing:
-        click.echo(f"machinecheck, version {__version__} ({build_kind()})")
+        click.echo(f"machinecheck, version {__version__}")
         ctx.exit()
 
 
@@ -89,7 +89,7 @@ def _option_name(key: str | None, table: dict) -> str | None:
 
 
 def _oneoff_machine(values: dict):
-    from .catalog import catalog_from_data
+    from ..inputs.catalog import catalog_from_data
 
     machine = {"id": "one-off"}
     for option, key in MACHINE_OPTIONS.items():
@@ -117,7 +117,7 @@ def _oneoff_machine(values: dict):
 
 
 def _oneoff_site(values: dict):
-    from .catalog import sites_from_data
+    from ..inputs.catalog import sites_from_data
 
     site = {"id": "supply"}
     for option, key in SITE_OPTIONS.items():
@@ -131,9 +131,14 @@ def _oneoff_site(values: dict):
 
 
 def _demo_path(name: str) -> str:
-    from importlib.resources import files
+    """The bundled demo file: inside an installed wheel, or the checkout's catalogs/ folder."""
+    from pathlib import Path
 
-    return str(files("machinecheck") / "catalogs" / name)
+    package = Path(__file__).resolve().parent.parent
+    for folder in (package / "catalogs", package.parent / "catalogs"):
+        if (folder / name).is_file():
+            return str(folder / name)
+    raise MachinecheckError(f"the bundled demo file {name} is missing from this installation")
 
 
 def _machine_given(values) -> bool:
@@ -144,7 +149,7 @@ def _machine_given(values) -> bool:
 def _load_sites(sites_file, values, errors) -> list:
     """The sites of --sites (the demo's by default) or of the supply options; problems are
     added to ``errors``."""
-    from .catalog import load_sites
+    from ..inputs.catalog import load_sites
 
     if any(values.get(o) is not None for o in SITE_OPTIONS):
         if sites_file:
@@ -164,7 +169,7 @@ def _load_sites(sites_file, values, errors) -> list:
 
 
 def _load_inputs(catalogs, sites_file, values):
-    from .catalog import load_catalog
+    from ..inputs.catalog import load_catalog
 
     machine_given = _machine_given(values)
     errors = []
@@ -202,7 +207,7 @@ def _select(items, wanted, what):
     ids = {item.id for item in items}
     missing = [w for w in wanted if w not in ids]
     if missing:
-        from .catalog import closest
+        from ..inputs.catalog import closest
 
         hints = []
         for name in missing:
@@ -380,8 +385,8 @@ def _from_texts(catalogs, sites_file, site_ids, values, fmt, output, explain, pr
     Returns the exit status, or None when this path does not apply or a piece needs the whole
     catalog (an error, a duplicate id ...): the caller then loads everything as usual.
     """
-    from . import runner
-    from .catalog import read_text
+    from .. import fleet as runner
+    from ..inputs.catalog import read_text
 
     workers = runner.workers_available()
     if workers < 2 or any(c.lower().endswith(".csv") for c in catalogs):
@@ -413,7 +418,7 @@ def _from_texts(catalogs, sites_file, site_ids, values, fmt, output, explain, pr
 
 def _streamed(machines, sites, fmt, explain, problems_only, bar):
     """A streamed format: checked and written in chunks (in parallel on a large fleet)."""
-    from .runner import Tally, stream
+    from ..fleet import Tally, stream
 
     tally = Tally()
     return tally, stream(machines, sites, fmt, explain=explain, problems_only=problems_only,
@@ -422,8 +427,8 @@ def _streamed(machines, sites, fmt, explain, problems_only, bar):
 
 def _rendered(machines, sites, fmt, explain, problems_only, matrix, bar, *, to_terminal):
     """A format that sorts and groups (table, markdown, html): every pair kept, then rendered."""
-    from .check import assess_all
-    from .runner import Tally
+    from ..engine.check import assess_all
+    from ..fleet import Tally
 
     progress = None if bar is None else (lambda: bar.update(1))
     tally, shown = Tally.of(assess_all(machines, sites, explain=explain, progress=progress),
@@ -435,7 +440,7 @@ def _rendered(machines, sites, fmt, explain, problems_only, matrix, bar, *, to_t
 def render(fmt, results, *, explain=False, matrix=False, sites=(), machines=(), to_terminal=True):
     import shutil
 
-    from .report import renderer
+    from ..report import renderer
 
     module = renderer(fmt)
     width = shutil.get_terminal_size((100, 24)).columns
@@ -456,7 +461,7 @@ def render(fmt, results, *, explain=False, matrix=False, sites=(), machines=(), 
 @_report_errors
 def speed(poles, frequency, rated_speed, rated_frequency):
     """Synchronous speed, and the slip-adjusted speed at a new frequency."""
-    from .lookups import speed_lines
+    from ..cli.lookups import speed_lines
 
     _echo_lines(speed_lines(poles, frequency, rated_speed, rated_frequency))
 
@@ -467,7 +472,7 @@ def speed(poles, frequency, rated_speed, rated_frequency):
 @_report_errors
 def poles(speed_text, frequency):
     """Pole count, synchronous speed and slip from a nameplate speed."""
-    from .lookups import poles_lines
+    from ..cli.lookups import poles_lines
 
     _echo_lines(poles_lines(speed_text, frequency))
 
@@ -481,7 +486,7 @@ def poles(speed_text, frequency):
 @_report_errors
 def current(power, voltage, phases, efficiency, power_factor):
     """Full-load current from output, voltage, efficiency and power factor."""
-    from .lookups import current_lines
+    from ..cli.lookups import current_lines
 
     _echo_lines(current_lines(power, voltage, phases, efficiency, power_factor))
 
@@ -496,7 +501,7 @@ def _echo_lines(lines) -> None:
 @_report_errors
 def validate(files):
     """Validate catalog, inventory and site files; report every problem."""
-    from .catalog import catalog_from_data, load_catalog, parse_toml, read_text, sites_from_data
+    from ..inputs.catalog import catalog_from_data, load_catalog, parse_toml, read_text, sites_from_data
 
     errors = []
     for path in files:
@@ -529,8 +534,8 @@ def validate(files):
 @_report_errors
 def convert(source, target, output):
     """Convert a catalog between a CSV inventory and TOML (validated first)."""
-    from .catalog import catalog_from_data, parse_toml, read_text
-    from .inventory import inventory_catalog, read_inventory, to_csv, to_toml
+    from ..inputs.catalog import catalog_from_data, parse_toml, read_text
+    from ..inputs.inventory import inventory_catalog, read_inventory, to_csv, to_toml
 
     if source.lower().endswith(".csv"):
         data, locator, name = read_inventory(source)
@@ -554,7 +559,7 @@ def schema(which):
     """Print the JSON Schema of the catalog or sites file format (for editors)."""
     import json
 
-    from .schema import catalog_schema, sites_schema
+    from ..inputs.schema import catalog_schema, sites_schema
 
     click.echo(json.dumps(catalog_schema() if which == "catalog" else sites_schema(), indent=2))
 

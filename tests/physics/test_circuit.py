@@ -4,9 +4,9 @@ import math
 
 import pytest
 
-from machinecheck.catalog import load_catalog
-from machinecheck.cli import _demo_path
+from machinecheck.cli.main import _demo_path
 from machinecheck.errors import DomainError
+from machinecheck.inputs.catalog import load_catalog
 from machinecheck.physics import circuit
 
 # S. J. Chapman, Electric Machinery Fundamentals, 4th ed., Example 7-5 (given data and the

@@ -8,8 +8,8 @@ from pathlib import Path
 
 import pytest
 
-from machinecheck import units
 from machinecheck.errors import InputError
+from machinecheck.inputs import units
 
 
 @pytest.fixture
@@ -45,7 +45,7 @@ def test_scales_are_kept_for_the_next_run(fresh):
     value = units.parse("10 hp", "power")
     stored = json.loads(fresh.read_text())
     assert stored["scales"]["power hp"] == [pytest.approx(745.6998715822701), 0.0]
-    code = ("import sys; from machinecheck import units; "
+    code = ("import sys; from machinecheck.inputs import units; "
             "print(units.parse('10 hp', 'power'), 'pint' in sys.modules)")
     env = {**os.environ, "MACHINECHECK_CACHE": str(fresh.parent)}
     out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, env=env,

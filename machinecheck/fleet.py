@@ -20,7 +20,7 @@ import re
 import sys
 from dataclasses import dataclass, field
 
-from .check import VERDICTS
+from .engine.check import VERDICTS
 from .report import renderer
 
 try:
@@ -89,8 +89,8 @@ def _work(bounds):
 
 def _work_text(job):
     """Parse, validate and check one piece of a catalog's text; None when it needs the whole."""
-    from .catalog import catalog_from_data
     from .errors import MachinecheckError
+    from .inputs.catalog import catalog_from_data
 
     plans, sites, fmt, explain, problems_only = _TEXT_JOB
     index, start, stop = job
@@ -130,7 +130,7 @@ def parse_piece(text: str) -> dict | None:
     agree on TOML 1.0 documents; a piece showing anything only 1.1 reads goes to tomllib, so a
     catalog is accepted here exactly when the whole load would accept it.
     """
-    from .catalog import tomllib
+    from .inputs.catalog import tomllib
 
     if rtoml is not None and not _beyond_toml_1_0(text):
         try:
@@ -144,7 +144,7 @@ def parse_piece(text: str) -> dict | None:
 
 
 def _checked(machines, sites, fmt, explain, problems_only):
-    from .check import assess_all
+    from .engine.check import assess_all
 
     tally, shown = Tally.of(assess_all(machines, sites, explain=explain), problems_only)
     # bytes: a worker's text crosses the pipe and reaches the file without re-encoding
@@ -170,7 +170,9 @@ class _Workers:
         from concurrent.futures import ProcessPoolExecutor
 
         # import what the workers run before forking, so each does not import it again
-        from . import catalog, check, rules  # noqa: F401
+        from . import rules  # noqa: F401
+        from .engine import check
+        from .inputs import catalog  # noqa: F401
 
         check._rules()
         self._executor = ProcessPoolExecutor(min(workers, jobs),

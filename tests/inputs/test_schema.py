@@ -6,9 +6,9 @@ import jsonschema
 import pytest
 from click.testing import CliRunner
 
-from machinecheck.catalog import tomllib
-from machinecheck.cli import _demo_path, main
-from machinecheck.schema import catalog_schema, sites_schema
+from machinecheck.cli.main import _demo_path, main
+from machinecheck.inputs.catalog import tomllib
+from machinecheck.inputs.schema import catalog_schema, sites_schema
 
 
 def _validator(schema):

@@ -23,7 +23,7 @@ import os
 import re
 import zlib
 
-from .errors import InputError
+from ..errors import InputError
 
 #: kind -> (internal unit, default unit for bare numbers, scale of the default unit to internal,
 #: a reference unit of the same dimension for pint checks, what to say in errors)

@@ -9,7 +9,7 @@ import os
 import pytest
 from click.testing import CliRunner
 
-from machinecheck.cli import main
+from machinecheck.cli.main import main
 
 CORPUS = os.path.join(os.path.dirname(__file__), "corpus")
 FILES = sorted(f for f in os.listdir(CORPUS) if f.endswith(".toml"))
@@ -131,7 +131,7 @@ def test_very_long_id_rejected(write):
 
 
 def test_interrupt_leaves_no_output(tmp_path, monkeypatch):
-    import machinecheck.check as engine
+    import machinecheck.engine.check as engine
 
     def interrupted(*args, **kwargs):
         raise KeyboardInterrupt

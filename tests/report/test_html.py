@@ -5,8 +5,8 @@ from html.parser import HTMLParser
 from click.testing import CliRunner
 from helpers import machine, site
 
-from machinecheck.check import assess
-from machinecheck.cli import main
+from machinecheck.cli.main import main
+from machinecheck.engine.check import assess
 from machinecheck.physics import tolerance
 from machinecheck.report import html
 

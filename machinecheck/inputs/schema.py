@@ -7,11 +7,11 @@ words are given in their canonical spelling, which machinecheck also accepts in 
 
 from __future__ import annotations
 
-from .catalog import DESIGN_LETTERS, INSULATION_CLASSES
-from .model import KINDS, STANDARDS, SYSTEMS
-from .physics.efficiency import CLASSES as EFFICIENCY_CLASSES
-from .physics.loads import LOAD_TYPES
-from .physics.starting import CODE_LETTERS
+from ..inputs.catalog import DESIGN_LETTERS, INSULATION_CLASSES
+from ..model import KINDS, STANDARDS, SYSTEMS
+from ..physics.efficiency import CLASSES as EFFICIENCY_CLASSES
+from ..physics.loads import LOAD_TYPES
+from ..physics.starting import CODE_LETTERS
 
 DRAFT = "https://json-schema.org/draft/2020-12/schema"
 _NUMBER = r"[-+]?([0-9]+\.?[0-9]*|\.[0-9]+)([eE][-+]?[0-9]+)?"

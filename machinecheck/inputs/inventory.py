@@ -13,8 +13,8 @@ import csv
 import io
 import re
 
-from .catalog import MACHINE_KEYS, RATING_KEYS, Locator, catalog_from_data, closest, read_text
-from .errors import InputError, InputErrors
+from ..errors import InputError, InputErrors
+from ..inputs.catalog import MACHINE_KEYS, RATING_KEYS, Locator, catalog_from_data, closest, read_text
 
 #: Machine-level columns (the same on every row of one machine).
 MACHINE_COLUMNS = tuple(k for k in MACHINE_KEYS if k not in ("rating", "load", "service_factor"))

@@ -13,14 +13,14 @@ from dataclasses import dataclass, field
 from functools import lru_cache
 from types import MappingProxyType
 
-from .errors import DomainError
-from .memo import IdentityMemo
-from .model import Connection, Machine, Rating, Site
-from .physics import circuit as circuit_physics
-from .physics import current as current_physics
-from .physics import environment, frequency, loads, nec, starting, tolerance, unbalance
-from .physics import speed as speed_physics
-from .physics.efficiency import efficiency_class_of, minimum_efficiency
+from ..errors import DomainError
+from ..memo import IdentityMemo
+from ..model import Connection, Machine, Rating, Site
+from ..physics import circuit as circuit_physics
+from ..physics import current as current_physics
+from ..physics import environment, frequency, loads, nec, starting, tolerance, unbalance
+from ..physics import speed as speed_physics
+from ..physics.efficiency import efficiency_class_of, minimum_efficiency
 
 SEVERITIES = ("info", "warning", "problem")
 VERDICTS = ("compatible", "conditional", "incompatible")
@@ -224,7 +224,7 @@ def verdict_of(findings) -> str:
 def _rules():
     global _RULES
     if _RULES is None:
-        from .rules import RULES  # rules import this module's names: bound on first use
+        from ..rules import RULES  # rules import this module's names: bound on first use
 
         _RULES = RULES
     return _RULES

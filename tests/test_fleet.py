@@ -7,9 +7,9 @@ import os
 import pytest
 from click.testing import CliRunner
 
-from machinecheck import runner
-from machinecheck.catalog import tomllib
-from machinecheck.cli import _demo_path, main
+from machinecheck import fleet as runner
+from machinecheck.cli.main import _demo_path, main
+from machinecheck.inputs.catalog import tomllib
 
 ENV = {"NO_COLOR": "1", "COLUMNS": "120"}
 
@@ -156,7 +156,7 @@ def _same(a, b):
 
 
 def _corpus_and_demo():
-    folder = os.path.join(os.path.dirname(__file__), "corpus")
+    folder = os.path.join(os.path.dirname(__file__), "inputs", "corpus")
     texts = {}
     for name in sorted(os.listdir(folder)):
         with open(os.path.join(folder, name), encoding="utf-8", errors="replace") as handle:

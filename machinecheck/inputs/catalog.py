@@ -13,13 +13,13 @@ import os
 import re
 import sys
 
+from ..errors import DomainError, InputError, InputErrors
+from ..model import KINDS, STANDARDS, SYSTEMS, Catalog, Connection, Load, Machine, Rating, Site
+from ..physics import speed as speed_physics
+from ..physics.efficiency import CLASSES as EFFICIENCY_CLASSES
+from ..physics.loads import LOAD_TYPES
+from ..physics.starting import CODE_LETTERS
 from . import units
-from .errors import DomainError, InputError, InputErrors
-from .model import KINDS, STANDARDS, SYSTEMS, Catalog, Connection, Load, Machine, Rating, Site
-from .physics import speed as speed_physics
-from .physics.efficiency import CLASSES as EFFICIENCY_CLASSES
-from .physics.loads import LOAD_TYPES
-from .physics.starting import CODE_LETTERS
 
 if sys.version_info >= (3, 11):
     import tomllib
@@ -300,7 +300,7 @@ def load_catalog(path) -> Catalog:
     """Read and validate a catalog file (TOML, or CSV by its ending)."""
     name = os.fspath(path)
     if name.lower().endswith(".csv"):
-        from .inventory import load_inventory
+        from ..inputs.inventory import load_inventory
 
         return load_inventory(name)
     text = read_text(name)

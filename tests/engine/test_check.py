@@ -3,7 +3,7 @@ import math
 import pytest
 from helpers import codes, machine, site
 
-from machinecheck.check import assess
+from machinecheck.engine.check import assess
 
 NEMA_50HP = {"frequency": "60 Hz", "voltage": "460 V", "power": "50 hp", "speed": "1775 rpm",
              "efficiency": 0.93, "power_factor": 0.85}
@@ -249,9 +249,9 @@ def test_efficiency_class_required_by_site():
 
 
 def test_demo_shows_all_three_verdicts():
-    from machinecheck.catalog import load_catalog, load_sites
-    from machinecheck.check import assess_all
-    from machinecheck.cli import _demo_path
+    from machinecheck.cli.main import _demo_path
+    from machinecheck.engine.check import assess_all
+    from machinecheck.inputs.catalog import load_catalog, load_sites
 
     results = assess_all(load_catalog(_demo_path("fleet.toml")).machines,
                          load_sites(_demo_path("sites.toml")))

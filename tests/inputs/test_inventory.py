@@ -4,8 +4,8 @@ import json
 
 from click.testing import CliRunner
 
-from machinecheck.catalog import load_catalog
-from machinecheck.cli import _demo_path, main
+from machinecheck.cli.main import _demo_path, main
+from machinecheck.inputs.catalog import load_catalog
 
 ENV = {"NO_COLOR": "1", "COLUMNS": "120"}
 
@@ -74,11 +74,11 @@ def test_convert_refuses_to_overwrite_its_source(write):
 
 
 def test_toml_strings_are_escaped(write):
-    from machinecheck.inventory import to_toml
+    from machinecheck.inputs.inventory import to_toml
 
     text = to_toml({"machine": [{"id": 'A "quoted" \\ id', "description": "tab\there\x7f",
                                  "rating": [{"frequency": 50, "voltage": ["400 V"]}]}]})
-    from machinecheck.catalog import tomllib
+    from machinecheck.inputs.catalog import tomllib
 
     data = tomllib.loads(text)
     assert data["machine"][0]["id"] == 'A "quoted" \\ id'

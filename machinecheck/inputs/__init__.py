@@ -1,0 +1,1 @@
+"""Files and options turned into typed, validated records: field table, units, readers."""
