@@ -19,7 +19,8 @@ both give NaN limits, never an extrapolated value.
 
 The class marked on a plate is the motor's class. :func:`check_marked_class` sets the class the
 plate efficiency reaches beside the marked one, so that a disagreement can be reported as a
-finding of its own without replacing the marking.
+finding of its own without replacing the marking. :func:`meets_class` answers "does this
+efficiency reach class X" and uses the nesting of the classes where X itself is not carried.
 """
 
 from __future__ import annotations
@@ -244,6 +245,16 @@ def efficiency_class_of(efficiency: float, power_w: float, poles: int,
     return highest_met if settled else None
 
 
+def _class_status(efficiency: float, power_w: float, poles: int,
+                  frequency_hz: float) -> list[bool | None]:
+    """Per class IE1..IE4: True met, False missed, None not carried (or out of scope)."""
+    status: list[bool | None] = []
+    for name in CLASSES:
+        limit = minimum_efficiency(name, power_w, poles, frequency_hz)
+        status.append(None if math.isnan(limit) else efficiency + 1e-9 >= limit)
+    return status
+
+
 def _class_bounds(efficiency: float, power_w: float, poles: int,
                   frequency_hz: float) -> tuple[str | None, bool]:
     """Highest carried class the efficiency meets, and whether no uncarried class could be higher.
@@ -252,16 +263,46 @@ def _class_bounds(efficiency: float, power_w: float, poles: int,
     highest carried class met and the lowest carried class missed; it is settled when no class
     in between is uncarried.
     """
-    status = []  # per class: True met, False missed, None not carried
-    for name in CLASSES:
-        limit = minimum_efficiency(name, power_w, poles, frequency_hz)
-        status.append(None if math.isnan(limit) else efficiency + 1e-9 >= limit)
-    met = [i for i, s in enumerate(status) if s is True]
-    missed = [i for i, s in enumerate(status) if s is False]
-    low = max(met, default=-1)
-    high = min((i for i in missed if i > low), default=len(CLASSES))
+    status = _class_status(efficiency, power_w, poles, frequency_hz)
+    low = max((i for i, s in enumerate(status) if s is True), default=-1)
+    high = min((i for i, s in enumerate(status) if s is False and i > low), default=len(CLASSES))
     settled = all(status[i] is not None for i in range(low + 1, high))
     return (CLASSES[low] if low >= 0 else None), settled
+
+
+def meets_class(efficiency: float, efficiency_class: str, power_w: float, poles: int,
+                frequency_hz: float) -> bool | None:
+    """Whether an efficiency reaches an IE class, using the nesting of the classes.
+
+    Where the class's own limit is not carried, the answer still follows when the efficiency
+    misses a carried lower class (then it misses this one too) or meets a carried higher class
+    (then it meets this one too).
+
+    Parameters
+    ----------
+    efficiency : rated full-load efficiency [-], as a fraction
+    efficiency_class : "IE1" ... "IE4"
+    power_w : rated output [W]
+    poles : number of poles [-]
+    frequency_hz : rated frequency [Hz]
+
+    Returns
+    -------
+    bool or None : None when it cannot be told (out of scope, or no carried class decides).
+
+    References
+    ----------
+    .. [1] IEC 60034-30-1:2014 (as :func:`minimum_efficiency`).
+    """
+    rank = class_rank(efficiency_class) - 1
+    status = _class_status(efficiency, power_w, poles, frequency_hz)
+    if status[rank] is not None:
+        return status[rank]
+    if any(s is False for s in status[:rank]):
+        return False
+    if any(s is True for s in status[rank + 1:]):
+        return True
+    return None
 
 
 @dataclass(frozen=True)
@@ -275,9 +316,11 @@ class ClassCheck:
     at_least : highest carried class the plate efficiency meets, or None; equals ``computed``
         when that is settled, and is a lower bound when a higher class is not carried
     marked_minimum : nominal minimum of the marked class [-]; NaN when unknown
-    meets_marked : whether the plate efficiency reaches the marked class's minimum; None when
-        either is unknown
-    agrees : whether the computed class equals the marked one; None when either is unknown
+    meets_marked : whether the plate efficiency reaches the marked class (:func:`meets_class`);
+        None when it cannot be told
+    agrees : whether the class the plate efficiency reaches equals the marked one; False also
+        when it is known to lie below or above the marked class without being settled exactly;
+        None when it cannot be told
     """
 
     marked: str | None
@@ -317,9 +360,14 @@ def check_marked_class(marked_class: str | None, efficiency: float | None, power
     computed = at_least if settled else None
     minimum = (minimum_efficiency(marked, power_w, poles, frequency_hz)
                if marked is not None else math.nan)
-    meets = (None if efficiency is None or math.isnan(minimum)
-             else efficiency + 1e-9 >= minimum)
-    agrees = None if marked is None or computed is None else computed == marked
+    meets = (meets_class(efficiency, marked, power_w, poles, frequency_hz)
+             if marked is not None and efficiency is not None else None)
+    agrees: bool | None = None
+    if marked is not None and computed is not None:
+        agrees = computed == marked
+    elif meets is False or (marked is not None and at_least is not None
+                            and class_rank(at_least) > class_rank(marked)):
+        agrees = False  # below the marked class, or above it, though not settled exactly
     return ClassCheck(marked, computed, at_least, minimum, meets, agrees)
 
 

@@ -313,3 +313,34 @@ def test_computed_class_is_the_highest_met(eta, kw, poles, hz):
     if rank < len(efficiency.CLASSES):
         above = efficiency.minimum_efficiency(efficiency.CLASSES[rank], kw * KW, poles, hz)
         assert eta + 1e-9 < above
+
+
+@pytest.mark.parametrize("eta,cls,kw,poles,hz,expected", [
+    # 60 Hz 4-pole 15 kW: IE2 91.0, IE3 93.0 ([42 USC 6313(b)], [10 CFR 431.25] Table 1);
+    # IE1 and IE4 not carried, decided by the nesting of the classes where possible
+    (0.70, "IE4", 15, 4, 60, False),  # misses IE2 and IE3, so misses IE4
+    (0.95, "IE4", 15, 4, 60, None),   # meets IE3; IE4 unknown
+    (0.915, "IE1", 15, 4, 60, True),  # meets IE2, so meets IE1
+    (0.90, "IE1", 15, 4, 60, None),   # misses IE2; IE1 unknown
+    (0.93, "IE3", 15, 4, 60, True), (0.929, "IE3", 15, 4, 60, False),
+    # 50 Hz 15 kW 4-pole IE3 92.1 (Table 28 formula)
+    (0.921, "IE3", 15, 4, 50, True), (0.92, "IE3", 15, 4, 50, False),
+    # out of scope
+    (0.99, "IE1", 1200, 4, 50, None),
+])
+def test_meets_class(eta, cls, kw, poles, hz, expected):
+    assert efficiency.meets_class(eta, cls, kw * KW, poles, hz) is expected
+
+
+def test_marked_ie4_at_60hz_below_ie2_is_known_not_to_agree():
+    check = efficiency.check_marked_class("IE4", 0.70, 15 * KW, 4, 60)
+    assert math.isnan(check.marked_minimum)
+    assert check.computed is None
+    assert check.meets_marked is False
+    assert check.agrees is False
+
+
+def test_marked_ie2_at_60hz_above_ie3_is_known_not_to_agree():
+    check = efficiency.check_marked_class("IE2", 0.94, 15 * KW, 4, 60)
+    assert (check.computed, check.at_least, check.meets_marked, check.agrees) == (
+        None, "IE3", True, False)
