@@ -9,7 +9,7 @@ What is carried (see the data files' headers):
 
 * 50 Hz, IE2-IE4: 2, 4, 6 and 8 poles, 0.12 kW to 1000 kW.
 * 50 Hz, IE1: 2, 4 and 6 poles, 0.75 kW to 1000 kW (from memory of the standard).
-* 60 Hz, IE2 and IE3: 2, 4 and 6 poles, 0.75 kW to 150 kW.
+* 60 Hz, IE2 and IE3: 2, 4 and 6 poles, 0.75 kW to 150 kW (from 0.65 kW by the midpoint rule).
 * IE5 is not carried: IEC 60034-30-1:2014 defines IE1-IE4 only; no IE5 values could be
   confirmed from a published edition.
 
@@ -41,6 +41,8 @@ SCOPE_MAX_W = 1_000_000.0  # ... up to 1000 kW
 PLATEAU_FROM_W = 200_000.0  # 50 Hz: the 200 kW value applies from 200 kW up to 1000 kW
 _LOW_RANGE_TOP_W = 750.0  # 50 Hz: the 0.12-0.55 kW coefficients below 0.75 kW
 _EPS_W = 1e-6
+# 60 Hz: the rated output listed below 0.75 kW in the standard's 60 Hz tables (from memory)
+_NEXT_BELOW_60HZ_W = 550.0
 
 _COEFFICIENTS_50HZ = "iec60034-30-1_50hz_coefficients.csv"
 _TABLE_60HZ = "iec60034-30-1_60hz.csv"
@@ -159,7 +161,13 @@ def _limit_60hz(name: str, power_w: float, poles: int) -> float:
     if cell is None:
         return math.nan
     ratings, values = cell
-    if not ratings[0] - _EPS_W <= power_w <= ratings[-1] + _EPS_W:
+    if power_w < ratings[0] - _EPS_W:
+        # Below the first carried output the midpoint rule still gives its value down to the
+        # midpoint with the standard's next lower output (0.55 kW below 0.75 kW): 1 hp plates
+        # (745.7 W) take the 0.75 kW value.
+        midpoint = (_NEXT_BELOW_60HZ_W + ratings[0]) / 2.0
+        return values[0] if power_w >= midpoint - _EPS_W else math.nan
+    if power_w > ratings[-1] + _EPS_W:
         return math.nan
     i = bisect.bisect_left(ratings, power_w - _EPS_W)
     if ratings[i] - power_w > _EPS_W:  # between two rated outputs: the midpoint rule

@@ -194,6 +194,9 @@ def test_60hz_table_holds_exactly_the_carried_cells():
     (0.92, 85.5), (0.925, 86.5),
     # 110 kW 95.8 / 150 kW 96.2, midpoint 130 kW
     (129.9, 95.8), (130.0, 96.2),
+    # 1 hp = 0.7457 kW and 200 hp = 149.14 kW take the 0.75 kW and 150 kW values; below 0.75 kW
+    # down to the midpoint with the standard's 0.55 kW output (from memory), 0.65 kW
+    (0.7457, 85.5), (149.14, 96.2), (0.65, 85.5),
 ])
 def test_60hz_midpoint_rule(kw, value):
     assert pct("IE3", kw, 4, 60) == pytest.approx(value, abs=1e-9)
@@ -202,7 +205,7 @@ def test_60hz_midpoint_rule(kw, value):
 @pytest.mark.parametrize("cls,poles,kw", [
     ("IE1", 4, 15), ("IE4", 4, 15),   # IE1 and IE4 at 60 Hz not carried
     ("IE3", 8, 15),                   # 8 poles at 60 Hz not carried
-    ("IE3", 4, 0.55), ("IE3", 4, 0.74), ("IE3", 4, 151), ("IE2", 2, 1000),  # outside 0.75-150 kW
+    ("IE3", 4, 0.55), ("IE3", 4, 0.649), ("IE3", 4, 151), ("IE2", 2, 1000),  # outside 0.65-150 kW
 ])
 def test_60hz_cells_not_carried_are_nan(cls, poles, kw):
     assert math.isnan(pct(cls, kw, poles, 60))
