@@ -592,14 +592,14 @@ def _efficiency(a: Assessment) -> None:
     rating, m = a.rating, a.machine
     if m.kind != "induction-motor" or not rating.power_w or m.phases != 3:
         return
-    kw = rating.power_w / 1000.0
     f = rating.frequency_hz
     if not (abs(f - 50) < 1 or abs(f - 60) < 1):
         return
     if rating.efficiency is not None:
-        a.efficiency_class = efficiency_class_of(rating.efficiency, kw, a.poles, f)
+        a.efficiency_class = efficiency_class_of(rating.efficiency, rating.power_w, a.poles, f)
     if m.efficiency_class is not None:
-        a.efficiency_class_minimum = minimum_efficiency(m.efficiency_class, kw, a.poles, f)
+        a.efficiency_class_minimum = minimum_efficiency(m.efficiency_class, rating.power_w,
+                                                        a.poles, f)
 
 
 def _service_factor(a: Assessment) -> None:

@@ -1,7 +1,7 @@
 import pytest
 
 from machinecheck.errors import DomainError
-from machinecheck.physics import efficiency, loads, nec, starting
+from machinecheck.physics import loads, nec, starting
 
 
 @pytest.mark.parametrize("hp,volts,amps", [
@@ -63,35 +63,6 @@ def test_code_letter_current_worked_value():
 def test_locked_rotor_current_60hz_motor_on_50hz():
     # practice notes Q22: a 60 Hz motor on 50 Hz at full voltage draws about 120 %.
     assert starting.locked_rotor_current_at_site(100, 1.2) == pytest.approx(120)
-
-
-@pytest.mark.parametrize("cls,kw,poles,value", [
-    # IEC 60034-30-1 50 Hz (standards.md 5.1 table and 5.2 check values, confirmed)
-    ("IE3", 1.0, 4, 83.7), ("IE3", 0.75, 4, 82.5), ("IE2", 200, 2, 95.0), ("IE3", 11, 4, 91.4),
-    ("IE2", 1.5, 4, 82.8), ("IE3", 200, 2, 95.8), ("IE4", 75, 4, 96.0), ("IE1", 1.5, 4, 77.2),
-    ("IE3", 7.5, 6, 89.1), ("IE2", 0.55, 4, None),
-])
-def test_iec_50hz_minimum_efficiency(cls, kw, poles, value):
-    result = efficiency.minimum_efficiency(cls, kw, poles, 50)
-    if value is None:
-        assert result is not None  # 0.55 kW uses the low-range coefficients
-    else:
-        assert 100 * result == pytest.approx(value, abs=0.05)
-
-
-@pytest.mark.parametrize("cls,kw,poles,value", [
-    # IEC 60034-30-1 60 Hz = 10 CFR 431.25 levels (standards.md 5.3, confirmed), midpoint rule
-    ("IE3", 37, 4, 94.5), ("IE2", 7.5, 4, 89.5), ("IE3", 150, 4, 96.2),
-    ("IE3", 16.0, 4, 93.0),   # below the 15/18.5 midpoint 16.75 -> 15 kW value
-    ("IE3", 17.3, 4, 93.6),   # above the midpoint -> 18.5 kW value
-])
-def test_iec_60hz_minimum_efficiency(cls, kw, poles, value):
-    assert 100 * efficiency.minimum_efficiency(cls, kw, poles, 60) == pytest.approx(value)
-
-
-def test_efficiency_class_of():
-    assert efficiency.efficiency_class_of(0.921, 15, 4, 50) == "IE3"
-    assert efficiency.efficiency_class_of(0.859, 4, 4, 50) == "IE1"
 
 
 @pytest.mark.parametrize("ratio,flow,head,power", [
