@@ -49,6 +49,18 @@ def test_transformer_dip_1000_kva():
     assert dp.dip_from_powers(1000e3, math.inf) == 0.0
 
 
+def test_transformer_dip_worked_example_eep():
+    # [EEP transformer-size and motor-start dip example]: 300 kW 460 V motor, code D upper
+    # figure, locked-rotor current 2118 A -> 460 * 2118 * sqrt(3) = 1688 kVA; on the 1000 kVA
+    # 5.75 % unit (17 391 kVA) the example's cruder form S_LR / S_sc gives 9.7 %. The divider
+    # used here, S_LR / (S_LR + S_sc), gives 8.85 %, below the cruder form as it must be.
+    s_lr = dp.locked_rotor_apparent_power(460.0, 2118.0)
+    assert s_lr == pytest.approx(1688e3, rel=1e-3)
+    s_sc = so.transformer_short_circuit_power(1000e3, 0.0575)
+    assert s_lr / s_sc == pytest.approx(0.097, abs=5e-4)
+    assert dp.dip_from_powers(s_lr, s_sc) == pytest.approx(0.0885, abs=5e-4)
+
+
 def test_generator_dip_equals_divider_with_reactances():
     # x''_d S_LR / (S_G + x''_d S_LR) [IEEE Std 399-1997 ch. 9]: 500 kVA set, 15 %, 600 kVA
     # start: 90 / 590 = 15.25 %; the same as the complex divider with pure reactances.

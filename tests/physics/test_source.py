@@ -16,6 +16,16 @@ def test_transformer_infinite_bus_1000_kva():
     assert 480.0 / (math.sqrt(3) * abs(z)) == pytest.approx(20.9e3, abs=50)
 
 
+def test_transformer_worked_example_eep():
+    # Published worked example [EEP transformer-size and motor-start dip example]: 1000 kVA,
+    # 11/0.48 kV, 5.75 %: full-load current 1203 A, secondary fault current 20 919 A, short-
+    # circuit power 17 391 kVA (printed to the ampere and kVA: 1e-4)
+    s_sc = so.transformer_short_circuit_power(1000e3, 0.0575)
+    assert 1000e3 / (math.sqrt(3) * 480.0) == pytest.approx(1203, rel=1e-3)
+    assert s_sc / (math.sqrt(3) * 480.0) == pytest.approx(20919, rel=1e-4)
+    assert s_sc == pytest.approx(17391e3, rel=1e-4)
+
+
 def test_transformer_infinite_bus_1500_kva():
     # 1500 kVA, 5.75 %, 480 V on an infinite bus: 31 374 A, from 1804 A / 0.0575
     # [IAEI 2018 short-circuit example]; the 4-digit rated current rounds, hence 2e-4.
