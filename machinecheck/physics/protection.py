@@ -26,8 +26,8 @@ from .supply_constants import SQRT3
 EDITIONS = ("2011", "2014", "2017", "2020", "2023")
 DEVICES = ("non-time-delay-fuse", "dual-element-fuse", "instantaneous-trip-breaker",
            "inverse-time-breaker")
-MOTOR_TYPES = ("single-phase", "squirrel-cage", "design-b-energy-efficient", "synchronous",
-               "wound-rotor", "dc-constant-voltage")
+MOTOR_TYPES = ("single-phase", "squirrel-cage", "design-b-energy-efficient",
+               "design-b-premium-efficiency", "synchronous", "wound-rotor", "dc-constant-voltage")
 #: 430.22: conductors for one continuous-duty motor at 125 % of the table current.
 CONDUCTOR_FACTOR = 1.25
 #: 430.22(C): conductors between a star-delta controller and the motor on 58 % of the table
@@ -211,15 +211,16 @@ def short_circuit_device_maximum(table_current_a: float, device: str,
     ----------
     table_current_a : full-load current of Tables 430.247 to 430.250 [A]
     device : one of DEVICES
-    motor_type : one of MOTOR_TYPES ('squirrel-cage' is 'other than Design B energy-efficient')
+    motor_type : one of MOTOR_TYPES ('squirrel-cage' is 'other than Design B energy-efficient';
+        'design-b-premium-efficiency' from the 2023 edition only)
     edition : NEC edition: '2011', '2014', '2017', '2020' or '2023'
 
     References
     ----------
     .. [1] NFPA 70 (2011 to 2020) Table 430.52 and 430.52(C)(1) Exception No. 1; NFPA 70-2023
        Table 430.52(C)(1). Percentages: non-time-delay fuse 300, dual-element fuse 175,
-       instantaneous-trip breaker 800 (1100 Design B energy-efficient), inverse-time breaker
-       250; wound rotor 150/150/800/150.
+       instantaneous-trip breaker 800 (1100 Design B energy-efficient, and from 2023 Design B
+       premium efficiency), inverse-time breaker 250; wound rotor 150/150/800/150.
     """
     _positive("table current", table_current_a)
     data = _load("table_430_52")
@@ -229,6 +230,9 @@ def short_circuit_device_maximum(table_current_a: float, device: str,
         raise DomainError(f"motor type must be one of {', '.join(MOTOR_TYPES)}, "
                           f"got {motor_type!r}")
     ed = _edition(edition)
+    if motor_type == "design-b-premium-efficiency" and int(ed) < int(data["premium_efficiency_from"]):
+        raise DomainError(f"NEC {ed} Table 430.52 names no Design B premium-efficiency row "
+                          "(added in 2023); its energy-efficient row is the one to read")
     percent = float(data["motor_types"][motor_type][DEVICES.index(device)])
     computed = percent / 100.0 * table_current_a
     clause = f"NEC {ed} {data['editions'][ed]}"

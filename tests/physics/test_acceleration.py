@@ -32,9 +32,9 @@ def test_constant_motor_torque_on_square_law_load_analytic():
 
 
 def test_us_trade_formula_308():
-    # t = WK^2 dN / (308 T) with WK^2 in lb ft^2, N in rpm, T in lb ft: the US motor-application
-    # form of t = J dw / T (motor application handbooks; from memory). 1 lb ft^2 =
-    # 0.0421401 kg m2, 1 lb ft = 1.355818 N m; the printed 308 is 307.2 rounded: 0.3 %.
+    # t = WK^2 dN / (308 T) with WK^2 in lb ft^2, N in rpm, T in lb ft [Fruge, Practical Motor
+    # Starting, Eq. 2]: the US form of t = J dw / T. 1 lb ft^2 = 0.0421401 kg m2,
+    # 1 lb ft = 1.355818 N m; the printed 308 is 307.2 rounded: 0.3 %.
     wk2, dn, torque_lbft = 500.0, 1780.0, 150.0
     r = ac.acceleration_time(wk2 * 0.0421401, ac.constant_load(torque_lbft * 1.355818),
                              ac.constant_load(0.0), dn * math.pi / 30.0)

@@ -43,6 +43,17 @@ def test_table_renumbered_in_2023():
     assert new.clause.endswith("Table 430.52(C)(1)")
 
 
+def test_premium_efficiency_row_from_2023():
+    # [NFPA 70-2023 Table 430.52(C)(1)] adds Design B premium-efficiency motors to the 1100 %
+    # instantaneous-trip row (published 2023 code-change summary); earlier tables lack the row
+    r = pr.short_circuit_device_maximum(34.0, "instantaneous-trip-breaker",
+                                        "design-b-premium-efficiency", edition="2023")
+    assert r.percent == 1100 and r.computed_a == pytest.approx(374.0)
+    with pytest.raises(DomainError):
+        pr.short_circuit_device_maximum(34.0, "instantaneous-trip-breaker",
+                                        "design-b-premium-efficiency", edition="2020")
+
+
 @pytest.mark.parametrize("current,fuse,expected", [
     # [NEC 240.6(A)] standard ratings; fuses also 1, 3, 6, 10 and 601 A
     (102.0, False, 110.0), (59.5, False, 60.0), (60.0, False, 60.0), (3.3, False, 15.0),
