@@ -123,3 +123,10 @@ def test_size_names(text, key):
 def test_unknown_conductors(size, material):
     with pytest.raises(DomainError):
         fd.conductor(size, material, 70.0, 50.0)
+
+
+@pytest.mark.parametrize("name", ["nec_chapter9_table9", "iec60228_class2"])
+def test_tables_name_their_source(name):
+    table = fd.load_table(name)
+    assert table["source"] and table["edition"] and table["unit"]
+    assert all(len(row) == len(table["columns"]) for row in table["rows"].values())
