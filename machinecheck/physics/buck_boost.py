@@ -45,10 +45,12 @@ def output_voltage(input_voltage_v: float, primary_rated_v: float, secondary_rat
                    boost: bool) -> float:
     """Output voltage of a two-winding unit connected as a buck or boost autotransformer.
 
-    Boost: the primary sits across the input and the secondary adds in series,
-        V_out = V_in (1 + V_s / V_p).
-    Buck: the input sits across both windings in series and the load across the primary,
-        V_out = V_in V_p / (V_p + V_s).
+    The primary sits across the input and the secondary is in series with the line, adding
+    to it (boost) or, with its leads reversed, taking from it (buck):
+        V_out = V_in (1 + V_s / V_p)   (boost)
+        V_out = V_in (1 - V_s / V_p)   (buck)
+    (A buck unit can also be wired with the input across both windings and the load across
+    the primary, V_out = V_in V_p / (V_p + V_s); that variant is not modelled here.)
 
     The same expressions hold for the line-to-line voltage of an open-delta or wye bank whose
     primaries are connected line-to-line (open delta) or line-to-neutral (wye) at their rated
@@ -69,13 +71,16 @@ def output_voltage(input_voltage_v: float, primary_rated_v: float, secondary_rat
     ----------
     .. [1] S. J. Chapman, *Electric Machinery Fundamentals*, 5th ed., sec. 2.9 (the
        autotransformer: V_H / V_L = (N_C + N_SE) / N_C).
+    .. [2] Common practice (a transformer maker's published answer): a 120/12 V unit gives
+       132 V, or 108 V with the secondary leads reversed.
     """
     _positive("input voltage", input_voltage_v)
     _positive("primary rated voltage", primary_rated_v)
     _positive("secondary rated voltage", secondary_rated_v)
-    if boost:
-        return input_voltage_v * (1.0 + secondary_rated_v / primary_rated_v)
-    return input_voltage_v * primary_rated_v / (primary_rated_v + secondary_rated_v)
+    if not secondary_rated_v < primary_rated_v:
+        raise DomainError("the series winding's voltage must be below the primary's")
+    sign = 1.0 if boost else -1.0
+    return input_voltage_v * (1.0 + sign * secondary_rated_v / primary_rated_v)
 
 
 def correction_voltage(supply_voltage_v: float, target_voltage_v: float) -> float:
