@@ -162,16 +162,40 @@ def transformer_overflux(applied_voltage_v: float, rated_voltage_v: float,
 
     References
     ----------
-    .. [1] IEEE Std C57.12.00, 4.1.6: transformers shall be capable of operating above rated
-       voltage or below rated frequency only while V/Hz does not exceed 105 % (at rated load)
-       (from memory). Flux ~ V / f: Chapman, *Electric Machinery Fundamentals*, sec. 2.10.
+    .. [1] Flux ~ V / f: S. J. Chapman, *Electric Machinery Fundamentals*, 5th ed., sec. 2.10.
+    .. [2] IEEE Std C57.12.00-2010, 4.1.6.1 (see :func:`within_rated_capability`).
     """
     return flux_ratio(applied_voltage_v, rated_voltage_v, applied_frequency_hz, rated_frequency_hz)
 
 
-#: Largest V/Hz a transformer carries continuously at rated load, per unit (IEEE Std C57.12.00
-#: 4.1.6, from memory).
+#: Largest V/Hz (and voltage) at which a transformer carries its rated kVA continuously, per
+#: unit of rated (IEEE Std C57.12.00-2010, 4.1.6.1 a) 1)).
 TRANSFORMER_VOLTS_PER_HERTZ_LIMIT = 1.05
+#: Lowest frequency, per unit of rated, of that capability (IEEE Std C57.12.00-2010,
+#: 4.1.6.1 a) 3)).
+TRANSFORMER_MIN_FREQUENCY = 0.95
+
+
+def within_rated_capability(applied_voltage_v: float, rated_voltage_v: float,
+                            applied_frequency_hz: float, rated_frequency_hz: float) -> bool:
+    """Whether a transformer may carry its rated kVA at this voltage and frequency.
+
+    True when V / V_r <= 1.05, (V/f) / (V_r/f_r) <= 1.05 and f / f_r >= 0.95 (the standard
+    also asks a load power factor of 0.8 or more). A 60 Hz unit on 50 Hz (f / f_r = 0.83) is
+    outside it at any voltage: its rating at 50 Hz is the maker's to give.
+
+    References
+    ----------
+    .. [1] IEEE Std C57.12.00-2010, 4.1.6.1 a): operation above rated voltage or below rated
+       frequency (liquid-immersed transformers; dry-type units have the like clause in
+       IEEE Std C57.12.01).
+    """
+    k = transformer_overflux(applied_voltage_v, rated_voltage_v, applied_frequency_hz,
+                             rated_frequency_hz)
+    eps = 1e-9
+    return (applied_voltage_v / rated_voltage_v <= TRANSFORMER_VOLTS_PER_HERTZ_LIMIT + eps
+            and k <= TRANSFORMER_VOLTS_PER_HERTZ_LIMIT + eps
+            and applied_frequency_hz / rated_frequency_hz >= TRANSFORMER_MIN_FREQUENCY - eps)
 
 
 def reduced_rating_va(rated_va: float, rated_frequency_hz: float, site_frequency_hz: float) -> float:
@@ -182,6 +206,8 @@ def reduced_rating_va(rated_va: float, rated_frequency_hz: float, site_frequency
     References
     ----------
     .. [1] Common practice, no published source; follows from rated current at V/f held.
+       Outside :func:`within_rated_capability` (below 95 % of rated frequency) the figure is an
+       estimate for the maker to confirm.
     """
     _positive("rated apparent power", rated_va)
     _positive("rated frequency", rated_frequency_hz)

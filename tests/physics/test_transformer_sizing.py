@@ -49,13 +49,23 @@ def test_fault_example_transformer_is_in_the_series():
 
 def test_60hz_transformer_on_50hz_is_overfluxed():
     # Flux ~ V/f [Chapman 5th ed. §2.10]: rated voltage at 50 Hz is 1.2 x rated flux, beyond
-    # the 105 % V/Hz a transformer carries at rated load [IEEE C57.12.00 §4.1.6] (from memory).
+    # the 105 % V/Hz at which a transformer carries its rated kVA [IEEE C57.12.00-2010
+    # §4.1.6.1]; and 50/60 = 0.83 is below the 95 % frequency floor of that clause.
     k = ts.transformer_overflux(480, 480, 50, 60)
     assert k == pytest.approx(1.2)
-    assert k > ts.TRANSFORMER_VOLTS_PER_HERTZ_LIMIT
+    assert not ts.within_rated_capability(480, 480, 50, 60)
+    assert not ts.within_rated_capability(400, 480, 50, 60)  # V/f held, frequency still low
     assert ts.transformer_overflux(400, 480, 50, 60) == pytest.approx(1.0)
     assert ts.reduced_rating_va(75_000, 60, 50) == pytest.approx(62_500)
     assert ts.reduced_rating_va(75_000, 50, 60) == pytest.approx(75_000)
+
+
+@pytest.mark.parametrize("v,f,ok", [(504, 60, True), (505, 60, False), (480, 57.2, True), (480, 57, False),
+                                    (480, 56.9, False), (456, 57, True)])
+def test_capability_limits_of_the_standard(v, f, ok):
+    # [IEEE C57.12.00-2010 §4.1.6.1] 480 V 60 Hz unit: V and V/Hz <= 105 %, f >= 95 %
+    # (480 V at 57 Hz is 105.3 % V/Hz).
+    assert ts.within_rated_capability(v, 480, f, 60) is ok
 
 
 def test_bad_inputs():
