@@ -118,14 +118,15 @@ def test_eu_class_unknown(eu):
 
 
 # [10 CFR 431.25] NEMA Premium for 1-500 hp from 1 June 2016, 60 Hz polyphase, 2-8 poles.
-@pytest.mark.parametrize("hp", [1, 50, 500])
-def test_us_2016_premium(us, hp):
-    f = rg.assess(us, facts(hp * HP_W / 1000, freqs=(60.0,), volts=460, date=D(2020, 1, 1),
+@pytest.mark.parametrize("kw", [1 * HP_W / 1000, 0.75, 50 * HP_W / 1000, 500 * HP_W / 1000, 375.0])
+def test_us_2016_premium(us, kw):
+    # A rating in hp and its standard kilowatt equivalent (1 hp / 0.75 kW, 500 hp / 375 kW)
+    # are both in scope [10 CFR 431.25].
+    f = rg.assess(us, facts(kw, freqs=(60.0,), volts=460, date=D(2020, 1, 1),
                             cls="NEMA Premium"))
     assert (f.required_class, f.status) == ("NEMA Premium", rg.COMPLIES)
     assert f.applies_from == D(2016, 6, 1)
-    f = rg.assess(us, facts(hp * HP_W / 1000, freqs=(60.0,), volts=460, date=D(2020, 1, 1),
-                            cls="IE2"))
+    f = rg.assess(us, facts(kw, freqs=(60.0,), volts=460, date=D(2020, 1, 1), cls="IE2"))
     assert f.status == rg.FAILS
 
 
