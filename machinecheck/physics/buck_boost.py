@@ -16,6 +16,7 @@ neutral, and a grounded system keeps its grounded conductor common to input and 
 from __future__ import annotations
 
 import math
+from dataclasses import dataclass
 
 from ..errors import DomainError
 
@@ -178,3 +179,89 @@ def next_standard_unit_va(required_va: float, sizes: tuple[float, ...] = STANDAR
         if size >= required_va * (1.0 - 1e-9):
             return size
     return math.nan
+
+
+#: Winding sets of common buck-boost units: (primary voltages, secondary voltages) [V]; each
+#: pair of windings can be connected in series or in parallel (common practice, no published
+#: standard: 120 x 240 V primaries with 12/24 or 16/32 V secondaries, 240 x 480 V with 24/48 V).
+STANDARD_WINDINGS: tuple[tuple[tuple[float, float], tuple[float, float]], ...] = (
+    ((120.0, 240.0), (12.0, 24.0)),
+    ((120.0, 240.0), (16.0, 32.0)),
+    ((240.0, 480.0), (24.0, 48.0)),
+)
+
+
+#: Most a primary may be fed, per unit of its rated voltage, at rated current: 105 %
+#: (IEEE Std C57.12.00-2010, 4.1.6.1 a) 1)), so 120.1 V on a 208Y/120 system takes a 120 V
+#: primary.
+PRIMARY_OVERVOLTAGE = 1.05
+
+
+@dataclass(frozen=True, slots=True)
+class Winding:
+    """A buck-boost connection: the unit's windings as connected and what it gives."""
+
+    primary_v: float
+    secondary_v: float
+    boost: bool
+    output_v: float
+
+
+def primary_applied_voltage(supply_voltage_v: float, connection: str) -> float:
+    """Voltage across each unit's primary [V]: line-to-line, or line-to-neutral in wye.
+
+    References
+    ----------
+    .. [1] Manufacturers' buck-boost connection diagrams (common practice): single units and
+       open-delta banks sit across the line voltage, wye banks across the phase voltage.
+    """
+    _connection(connection)
+    _positive("supply voltage", supply_voltage_v)
+    return supply_voltage_v / math.sqrt(3.0) if connection == "wye" else supply_voltage_v
+
+
+def choose_winding(supply_voltage_v: float, target_voltage_v: float, connection: str,
+                   windings: tuple[tuple[tuple[float, float], tuple[float, float]], ...]
+                   = STANDARD_WINDINGS) -> Winding:
+    """The connection of catalogued windings whose output comes closest to the target.
+
+    Every primary rated for the voltage applied across it (up to 105 % of its rating) is tried with every
+    secondary, boosting when the target is above the supply and bucking when below; the
+    output is :func:`output_voltage` of the line (line-to-line) voltage.
+
+    Parameters
+    ----------
+    supply_voltage_v : supply voltage, line-to-line for three-phase [V]
+    target_voltage_v : voltage wanted at the load [V]
+    connection : "single-phase", "open-delta" or "wye"
+    windings : winding sets to choose from, see :data:`STANDARD_WINDINGS`
+
+    Returns
+    -------
+    Winding
+
+    Raises
+    ------
+    DomainError : when no primary is rated for the voltage across it
+
+    References
+    ----------
+    .. [1] Manufacturers' buck-boost selection tables (common practice, no published source);
+       Chapman, *Electric Machinery Fundamentals*, 5th ed., sec. 2.9.
+    """
+    applied = primary_applied_voltage(supply_voltage_v, connection)
+    boost = target_voltage_v >= supply_voltage_v
+    best: Winding | None = None
+    for primaries, secondaries in windings:
+        for primary in primaries:
+            if primary * PRIMARY_OVERVOLTAGE < applied * (1.0 - 1e-9):
+                continue
+            for secondary in secondaries:
+                if secondary >= primary:
+                    continue
+                out = output_voltage(supply_voltage_v, primary, secondary, boost=boost)
+                if best is None or abs(out - target_voltage_v) < abs(best.output_v - target_voltage_v):
+                    best = Winding(primary, secondary, boost, out)
+    if best is None:
+        raise DomainError(f"no catalogued winding is rated for {applied:.0f} V across its primary")
+    return best

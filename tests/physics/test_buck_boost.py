@@ -65,3 +65,27 @@ def test_bad_inputs():
     with pytest.raises(DomainError):
         bb.output_voltage(0, 240, 24, boost=True)
     assert math.isnan(bb.next_standard_unit_va(20000))
+
+
+def test_choose_winding_for_the_208_to_230_case():
+    # Common practice: the 208 -> 230 V boost uses a 240 V primary and a 24 V series winding
+    # (208 x 1.1 = 228.8 V) [Chapman 5th ed. §2.9].
+    w = bb.choose_winding(208, 230, "open-delta")
+    assert (w.primary_v, w.secondary_v, w.boost) == (240, 24, True)
+    assert w.output_v == pytest.approx(228.8)
+    # A wye bank sits across 120 V and boosts it by 10 % with a 120 V / 12 V connection.
+    w = bb.choose_winding(208, 230, "wye")
+    assert (w.primary_v, w.secondary_v) == (120, 12)
+    assert w.output_v == pytest.approx(228.8)
+
+
+def test_choose_winding_buck_240_to_208():
+    # A 240 V primary with a 32 V series winding reversed: 240 x (1 - 32/240) = 208 V.
+    w = bb.choose_winding(240, 208, "single-phase")
+    assert (w.primary_v, w.secondary_v, w.boost) == (240, 32, False)
+    assert w.output_v == pytest.approx(208.0)
+
+
+def test_choose_winding_refuses_an_underrated_primary():
+    with pytest.raises(DomainError):
+        bb.choose_winding(600, 575, "single-phase")
