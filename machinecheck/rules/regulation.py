@@ -173,14 +173,13 @@ class RegulationFinding:
 
 def _need(table: dict[str, Any], key: str, kind: type | tuple[type, ...], file: str,
           where: str) -> Any:
+    path = f"{where}.{key}" if where else key
     if key not in table:
-        raise _input_error(f"missing key {key!r}", file=file, key=f"{where}.{key}")
+        raise _input_error(f"missing key {key!r}", file=file, key=path)
     value = table[key]
-    if isinstance(value, bool) and kind is not bool:
-        raise _input_error(f"{key!r} has the wrong type", file=file, key=f"{where}.{key}")
-    if not isinstance(value, kind):
+    if (isinstance(value, bool) and kind is not bool) or not isinstance(value, kind):
         raise _input_error(f"{key!r} has the wrong type ({type(value).__name__})", file=file,
-                         key=f"{where}.{key}")
+                           key=path)
     return value
 
 
@@ -226,8 +225,8 @@ def parse_pack(text: str, file: str) -> Pack:
         data = tomllib.loads(text)
     except tomllib.TOMLDecodeError as exc:
         raise _input_error(f"TOML syntax error: {exc}", file=file) from None
-    head = _need(data, "pack", dict, file, "file")
-    classes_raw = _need(data, "classes", dict, file, "file")
+    head = _need(data, "pack", dict, file, "")
+    classes_raw = _need(data, "classes", dict, file, "")
     classes: dict[str, int] = {}
     for name, rank in classes_raw.items():
         if isinstance(rank, bool) or not isinstance(rank, int):
@@ -238,13 +237,13 @@ def parse_pack(text: str, file: str) -> Pack:
         raise _input_error("used_import_covered must be yes, no or unclear", file=file,
                          key="pack.used_import_covered")
     tiers = tuple(_tier(entry, i, file, classes)
-                  for i, entry in enumerate(_opt(data, "tier", list, [], file, "file")))
+                  for i, entry in enumerate(_opt(data, "tier", list, [], file, "")))
     exemptions = tuple(
         Exemption(id=str(_need(e, "id", str, file, f"exemption[{i}]")),
                   clause=str(_need(e, "clause", str, file, f"exemption[{i}]")),
                   text=str(_need(e, "text", str, file, f"exemption[{i}]")),
                   confirmed=bool(_opt(e, "confirmed", bool, True, file, f"exemption[{i}]")))
-        for i, e in enumerate(_opt(data, "exemption", list, [], file, "file")))
+        for i, e in enumerate(_opt(data, "exemption", list, [], file, "")))
     min_v = _opt(head, "min_voltage_v", (int, float), None, file, "pack")
     max_v = _opt(head, "max_voltage_v", (int, float), None, file, "pack")
     return Pack(

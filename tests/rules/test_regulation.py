@@ -193,3 +193,18 @@ phases = [3]
     assert "tier[0].required_class" in str(err.value)
     with pytest.raises(InputError):
         rg.builtin_pack("XX")
+
+
+def test_pack_errors_name_the_key(tmp_path: Path):
+    path = tmp_path / "bad.toml"
+    path.write_text('[pack]\nregion = "XX"\n', encoding="utf-8")
+    with pytest.raises(InputError) as err:
+        rg.load_pack(path)
+    assert err.value.key == "classes"
+    shipped = Path(rg.__file__).parent.parent / "data" / "regulations" / "eu.toml"
+    path.write_text(shipped.read_text(encoding="utf-8").replace('region = "EU"', "region = 3"),
+                    encoding="utf-8")
+    with pytest.raises(InputError) as err:
+        rg.load_pack(path)
+    assert err.value.key == "pack.region"
+    assert "wrong type" in str(err.value)
