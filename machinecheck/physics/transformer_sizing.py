@@ -57,8 +57,7 @@ def target_terminal_voltage(rated_voltage_v: float, rated_frequency_hz: float,
     References
     ----------
     .. [1] NEMA MG 1 12.44.2 and any machines text on V/f, e.g. S. J. Chapman, *Electric
-       Machinery Fundamentals*, 5th ed., sec. 6.9 (440 V 60 Hz motor on 50 Hz at the same
-       flux: 366.7 V).
+       Machinery Fundamentals*, 5th ed., sec. 6.9 (V/f held below base speed).
     """
     _positive("rated voltage", rated_voltage_v)
     _positive("rated frequency", rated_frequency_hz)

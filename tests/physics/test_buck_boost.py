@@ -25,7 +25,7 @@ def test_buck_and_boost_of_a_120_12_unit():
 
 
 def test_208_to_230_motor_open_delta():
-    # Practice notes Q9 / the trade's usual case: a 230 V motor on a 208 V system. A 240 V
+    # The trade's usual case (common practice): a 230 V motor on a 208 V system. A 240 V
     # primary with a 24 V series winding gives 208 x 1.1 = 228.8 V [Chapman 5th ed. §2.9],
     # inside zone A of the 230 V rating [IEC 60034-1:2022 §7.3].
     out = bb.output_voltage(208, 240, 24, boost=True)

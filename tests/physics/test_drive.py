@@ -7,7 +7,8 @@ from machinecheck.physics import drive
 
 
 def test_460v_60hz_motor_on_400v_drive_weakens_above_52hz():
-    # Practice notes / fact sheet: the output voltage is capped at the input; 60 x 400/460 =
+    # Common practice (drive makers' application guides): the output voltage is capped at the
+    # input, so field weakening starts at 60 x 400/460 =
     # 52.17 Hz [Chapman 5th ed. §6.9].
     assert drive.field_weakening_frequency_hz(460, 60, 400) == pytest.approx(52.17, abs=0.01)
     torque, power = drive.kept_output(60, 460, 60, 400)
@@ -29,7 +30,7 @@ def test_full_voltage_drive_keeps_rated_output():
 
 
 def test_base_setting_is_the_motors_vf():
-    # Practice notes Q5: 400/50 = 480/60 = 8.0 V/Hz.
+    # Arithmetic: 400/50 = 480/60 = 8.0 V/Hz [Chapman 5th ed. §6.9].
     assert drive.volts_per_hertz(400, 50) == pytest.approx(8.0)
     assert drive.volts_per_hertz(480, 60) == pytest.approx(8.0)
 

