@@ -2,32 +2,13 @@
 
 A region's rules travel as a data pack (TOML) naming its source, the version of the text and
 its dates; the packs shipped are ``eu`` (Regulation (EU) 2019/1781 as amended by (EU) 2021/341)
-and ``us`` (10 CFR 431 Subpart B). A user adds a region by writing a file with the same keys
-and passing its path to :func:`load_pack`:
-
-``[pack]``
-    ``region``, ``title``, ``source`` (the legal text, with its date and publication),
-    ``text_version`` (which version was read, and what was not confirmed), ``applies_to`` (the
-    event the rule attaches to), ``used_import_covered`` ("yes", "no" or "unclear"),
-    ``used_import`` and ``used_moved`` (how the text treats a used machine brought in, and one
-    moved within the market), ``scope_note``; optional ``min_voltage_v``,
-    ``min_voltage_inclusive`` (default true), ``max_voltage_v``.
-``[classes]``
-    efficiency class name = rank (integer, higher is better); names are matched without
-    regard to case.
-``[[tier]]``
-    ``id``, ``clause``, ``from`` (a TOML date), ``required_class``, ``min_kw``, ``max_kw``;
-    optional ``phases``, ``poles``, ``frequencies_hz`` (lists; absent = any),
-    ``min_inclusive`` / ``max_inclusive`` (default true), ``kinds_excluded`` /
-    ``kinds_only`` (motor kinds such as "brake", "ex-eb", "ex-other", "fire-pump"),
-    ``confirmed`` (false when the tier's content was not checked against the text; the
-    verdict is then left to the user).
-``[[exemption]]``
-    ``id``, ``clause``, ``text``, ``confirmed``. An exemption is never assumed: the user claims
-    it for a machine, and its conditions stay the user's to confirm.
-
-Where several tiers in force match a machine, the one asking the highest class applies (a
-later tier raises the class for part of an earlier tier's range).
+and ``us`` (10 CFR 431 Subpart B). A user adds a region with a file of the same keys, read by
+:func:`load_pack`: ``[pack]`` (source, text version, how used machines are treated, scope),
+``[classes]`` (class name = rank), ``[[tier]]`` (a class asked of a power, pole, phase,
+frequency and kind range from a date; ``confirmed = false`` leaves the verdict to the user)
+and ``[[exemption]]`` (claimed by the user, never assumed). docs/regulation-packs.md lists
+every key. Where several tiers in force match a machine, the one asking the highest class
+applies (a later tier raises the class for part of an earlier tier's range).
 """
 
 from __future__ import annotations
