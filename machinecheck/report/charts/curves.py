@@ -99,8 +99,10 @@ def curves_chart_canvas(series: Sequence[Series], *, x_label: str, x_unit: str, 
         empty = not any(runs)
         entries.append((s.name + (" (no values)" if empty else ""), line_sample(colour, dash)))
 
+    bottom = legend_row(canvas, entries, left=plot.x0, top=plot.y1 + 44, right=plot.x1)
     ordered = sorted(markers, key=lambda m: (sy(m.y), sx(m.x), m.label))
     obstacles = [Box(sx(m.x) - 5, sy(m.y) - 5, sx(m.x) + 5, sy(m.y) + 5) for m in ordered]
+    obstacles += [t.box for t in canvas.texts]  # axis texts and legend stay clear too
     anchors = [Anchor(sx(m.x), sy(m.y), m.label) for m in ordered]
     placed = place_labels(anchors, font_size=_LABEL_SIZE, area=plot, obstacles=obstacles, soft=soft,
                           stack_x=plot.x1 + 16, stack_top=plot.y0)
@@ -114,7 +116,6 @@ def curves_chart_canvas(series: Sequence[Series], *, x_label: str, x_unit: str, 
             canvas.add(f'<line x1="{fmt(x0)}" y1="{fmt(y0)}" x2="{fmt(x1)}" y2="{fmt(y1)}" '
                        'stroke="#666" stroke-width="0.7"/>')
         canvas.text(where.x, where.y, m.label, size=_LABEL_SIZE)
-    bottom = legend_row(canvas, entries, left=plot.x0, top=plot.y1 + 44, right=plot.x1)
     boxes = [t.box for t in canvas.texts]
     canvas.width = max([plot.x1 + 16] + [b.x1 + 8 for b in boxes])
     canvas.height = max([bottom + 8] + [b.y1 + 8 for b in boxes])

@@ -117,8 +117,11 @@ def place_labels(anchors: Sequence[Anchor], *, font_size: float, area: Box,
                 if ring_ok:
                     chosen, leader = min(ring_ok, key=hits), True
                     break
-        if chosen is None:
+        if chosen is None:  # the stack column, below anything already there
             chosen, leader = Box(stack_x, stack_next, stack_x + w, stack_next + h), True
+            while any(chosen.overlaps(o, gap) for o in obstacles):
+                stack_next += 1.0
+                chosen = Box(stack_x, stack_next, stack_x + w, stack_next + h)
             stack_next += h + gap
         line = None
         if leader:

@@ -23,7 +23,7 @@ def marker(x: float, y: float, verdict: str, hollow: bool, out: tuple[float, flo
     """
     colour = VERDICT_COLOUR.get(verdict, _OTHER_COLOUR)
     fill = "#fff" if hollow else colour
-    title = f"<title>{esc(note)}</title>"
+    title = f"<title>{esc(note)}</title>" if note else ""
     style = f'fill="{fill}" stroke="{colour}" stroke-width="1.8"'
     if out != (0.0, 0.0):
         norm = math.hypot(*out)

@@ -126,6 +126,16 @@ def zone_diagram_canvas(points: Sequence[ZonePoint], polygons: Sequence[ZonePoly
         if out != (0.0, 0.0):
             text += f" (f {_pct(p.frequency_deviation_pu)}, V {_pct(p.voltage_deviation_pu)})"
         anchors.append(Anchor(x, y, text, clearance=7.0 if out == (0.0, 0.0) else 11.0))
+    # legend of the markers in use
+    kinds = sorted({p.verdict for p in points}, key=lambda v: (v not in VERDICT_COLOUR, v))
+    items = [(k or "no verdict", k, False, (0.0, 0.0)) for k in kinds]
+    if any(p.hollow for p in points):
+        items.append(("hollow: re-rated from another frequency", "", True, (0.0, 0.0)))
+    if off_chart:
+        items.append(("arrow: off the chart, values given", "", False, (1.0, 0.0)))
+    entries = [(text, _symbol(verdict, hollow, out)) for text, verdict, hollow, out in items]
+    bottom = legend_row(canvas, entries, left=plot.x0, top=plot.y1 + 44, right=plot.x1)
+    obstacles += [t.box for t in canvas.texts]  # axis texts and legend stay clear too
     placed = place_labels(anchors, font_size=_LABEL_SIZE, area=plot, obstacles=obstacles, soft=soft,
                           stack_x=plot.x1 + 24, stack_top=plot.y0)
     for p, x, y, out in ordered:
@@ -142,15 +152,6 @@ def zone_diagram_canvas(points: Sequence[ZonePoint], polygons: Sequence[ZonePoly
         canvas.text(where.x, where.y, where.anchor.text, size=_LABEL_SIZE, bold=bold,
                     fill="#333" if bold else "#111")
 
-    # legend of the markers in use
-    kinds = sorted({p.verdict for p in points}, key=lambda v: (v not in VERDICT_COLOUR, v))
-    items = [(k or "no verdict", k, False, (0.0, 0.0)) for k in kinds]
-    if any(p.hollow for p in points):
-        items.append(("hollow: re-rated from another frequency", "", True, (0.0, 0.0)))
-    if off_chart:
-        items.append(("arrow: off the chart, values given", "", False, (1.0, 0.0)))
-    entries = [(text, _symbol(verdict, hollow, out)) for text, verdict, hollow, out in items]
-    bottom = legend_row(canvas, entries, left=plot.x0, top=plot.y1 + 44, right=plot.x1)
     boxes = [t.box for t in canvas.texts]
     canvas.width = max([plot.x1 + 16] + [b.x1 + 8 for b in boxes])
     canvas.height = max([bottom + 8] + [b.y1 + 8 for b in boxes])

@@ -1,0 +1,283 @@
+"""SVG charts: structure, escaping, off-chart markers, determinism and the label layout.
+
+Drawing tests: no outside truth is checked here (the zone outlines come from physics/tolerance.py).
+"""
+
+from __future__ import annotations
+
+import math
+import xml.etree.ElementTree as ET
+
+import pytest
+from chart_inputs import (
+    HOSTILE,
+    crowded_points,
+    iec_polygons,
+    torque_markers,
+    torque_series,
+    waterfall_steps,
+)
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+from machinecheck.report.charts import (
+    Series,
+    WaterfallStep,
+    ZonePoint,
+    curves_chart,
+    curves_chart_canvas,
+    derating_waterfall,
+    derating_waterfall_canvas,
+    zone_diagram,
+    zone_diagram_canvas,
+)
+from machinecheck.report.charts._svg import Box, Canvas, esc, text_width
+
+NS = "{http://www.w3.org/2000/svg}"
+
+
+def parse(svg: str) -> ET.Element:
+    root = ET.fromstring(svg)
+    assert root.tag == f"{NS}svg"
+    return root
+
+
+def texts(root: ET.Element) -> list[str]:
+    return ["".join(t.itertext()) for t in root.iter(f"{NS}text")]
+
+
+def cleaned(name: str) -> str:
+    """A name as drawn: control characters become spaces."""
+    return "".join(" " if ord(ch) < 32 else ch for ch in name)
+
+
+def assert_layout_clean(canvas: Canvas) -> None:
+    """No two estimated text boxes overlap; every box lies inside the viewBox."""
+    frame = Box(0.0, 0.0, canvas.width, canvas.height)
+    boxes = [t.box for t in canvas.texts]
+    for i, a in enumerate(boxes):
+        assert a.inside(frame), (canvas.texts[i].text, a, frame)
+        for j in range(i + 1, len(boxes)):
+            assert not a.overlaps(boxes[j]), (canvas.texts[i].text, canvas.texts[j].text)
+
+
+def assert_self_contained(root: ET.Element) -> None:
+    tags = {el.tag.removeprefix(NS) for el in root.iter()}
+    assert "script" not in tags and "foreignObject" not in tags and "image" not in tags
+    for el in root.iter():
+        for name, value in el.attrib.items():
+            assert "href" not in name and not name.startswith("on"), (el.tag, name)
+            assert "url(" not in value, (el.tag, name, value)
+    assert root.get("viewBox", "").startswith("0 0 ")
+
+
+# --- waterfall ---------------------------------------------------------------------------------
+
+def test_waterfall_has_a_bar_name_and_value_per_step():
+    steps = waterfall_steps()
+    root = parse(derating_waterfall(steps, unit="kW"))
+    assert_self_contained(root)
+    bars = [r for r in root.iter(f"{NS}rect") if r.find(f"{NS}title") is not None]
+    assert [r.find(f"{NS}title").text for r in bars] == [s.label for s in steps]
+    shown = texts(root)
+    for s in steps:
+        assert s.label in shown
+    assert "37.0 kW" in shown and "31.0 kW" in shown
+    assert "× 0.950 → 35.1 kW" in shown and "× 1.032 → 31.0 kW" in shown
+
+
+def test_waterfall_bars_are_to_scale_and_floating_between_steps():
+    steps = [WaterfallStep("rated output", 40.0), WaterfallStep("altitude", 30.0, 0.75),
+             WaterfallStep("available output", 30.0)]
+    root = parse(derating_waterfall(steps))
+    rated, drop, available = [r for r in root.iter(f"{NS}rect") if r.find(f"{NS}title") is not None]
+    width = {name: float(r.get("width", "nan")) for name, r in
+             (("rated", rated), ("drop", drop), ("available", available))}
+    assert width["available"] / width["rated"] == pytest.approx(0.75, abs=0.01)
+    assert width["drop"] / width["rated"] == pytest.approx(0.25, abs=0.01)
+    # the drop hangs from the end of the available bar to the end of the rated bar
+    assert float(drop.get("x", "nan")) == pytest.approx(
+        float(available.get("x", "nan")) + width["available"], abs=0.2)
+
+
+@pytest.mark.parametrize("steps", [[WaterfallStep("rated output", 37.0)],
+                                   [WaterfallStep("rated", 37.0), WaterfallStep("x", math.nan)]])
+def test_waterfall_refuses_what_it_cannot_draw(steps):
+    with pytest.raises(ValueError):
+        derating_waterfall(steps)
+
+
+def test_waterfall_layout_with_long_names():
+    steps = waterfall_steps() + [WaterfallStep("W" * 80, 30.0, 0.97)]
+    assert_layout_clean(derating_waterfall_canvas(steps))
+
+
+# --- curves ------------------------------------------------------------------------------------
+
+def test_curves_have_one_line_per_series_a_legend_and_every_marker_label():
+    series, markers = torque_series(), torque_markers()
+    root = parse(curves_chart(series, x_label="speed", x_unit="rpm", y_label="torque",
+                              y_unit="% of rated", markers=markers))
+    assert_self_contained(root)
+    lines = list(root.iter(f"{NS}polyline"))
+    # the "gap" series is broken at its non-finite point: two runs
+    assert [ln.find(f"{NS}title").text for ln in lines] == [s.name for s in series[:3]] + ["gap"] * 2
+    shown = texts(root)
+    for s in series:
+        assert shown.count(s.name) == 1  # once, in the legend
+    for m in markers:
+        assert shown.count(m.label) == 1
+    assert "speed, rpm" in shown and "torque, % of rated" in shown
+    assert len(list(root.iter(f"{NS}circle"))) == len(markers)
+
+
+def test_curves_stay_inside_the_plot_and_axes_cover_the_data():
+    canvas = curves_chart_canvas(torque_series(), x_label="speed", x_unit="rpm", y_label="torque",
+                                 y_unit="% of rated", markers=torque_markers())
+    root = parse(canvas.svg())
+    frame = next(r for r in root.iter(f"{NS}rect") if r.get("stroke") == "#444")
+    x0, y0 = float(frame.get("x", "nan")), float(frame.get("y", "nan"))
+    x1, y1 = x0 + float(frame.get("width", "nan")), y0 + float(frame.get("height", "nan"))
+    for line in root.iter(f"{NS}polyline"):
+        for pair in line.get("points", "").split():
+            x, y = map(float, pair.split(","))
+            assert x0 - 0.05 <= x <= x1 + 0.05 and y0 - 0.05 <= y <= y1 + 0.05
+    assert_layout_clean(canvas)
+
+
+def test_curves_name_an_empty_series_instead_of_dropping_it():
+    root = parse(curves_chart([Series("site supply", [(math.nan, 1.0)])], x_label="speed",
+                              x_unit="rpm", y_label="current", y_unit="A"))
+    assert "site supply (no values)" in texts(root)
+    assert list(root.iter(f"{NS}polyline")) == []
+
+
+# --- zone diagram ------------------------------------------------------------------------------
+
+def test_zone_diagram_names_every_machine_once_and_never_summarises():
+    points = crowded_points()
+    root = parse(zone_diagram(points, iec_polygons()))
+    assert_self_contained(root)
+    shown = texts(root)
+    for p in points:
+        name = cleaned(p.label)
+        assert sum(1 for t in shown if t == name or t.startswith(name + " (f ")) == 1, p.label
+    assert not any(t.startswith("+") and t[1:].isdigit() for t in shown)
+    assert "zone A" in shown and "zone B" in shown
+    # one marker per point, each titled with its machine
+    titled = [el.find(f"{NS}title").text for el in root.iter()
+              if el.tag in (f"{NS}circle", f"{NS}rect", f"{NS}polygon")
+              and el.find(f"{NS}title") is not None]
+    for p in points:
+        assert sum(1 for t in titled if t.startswith(cleaned(p.label) + ": frequency")) == 1, p.label
+
+
+def test_zone_polygons_are_drawn_from_the_outlines_given():
+    polygons = iec_polygons()
+    root = parse(zone_diagram([ZonePoint("AT-RATED", 0.0, 0.0, "compatible")], polygons))
+    drawn = [el for el in root.iter(f"{NS}polygon") if el.find(f"{NS}title") is not None
+             and el.find(f"{NS}title").text in ("zone A", "zone B")]
+    assert [el.find(f"{NS}title").text for el in drawn] == ["zone B", "zone A"]
+    for el, polygon in zip(drawn, polygons):
+        assert len(el.get("points", "").split()) == len(polygon.vertices)
+    # the rated point sits at the middle of the default window (+-8 % f, +-16 % V)
+    dot = next(c for c in root.iter(f"{NS}circle") if c.find(f"{NS}title") is not None)
+    frame = next(r for r in root.iter(f"{NS}rect") if r.get("stroke") == "#444")
+    mid_x = float(frame.get("x", "nan")) + float(frame.get("width", "nan")) / 2
+    mid_y = float(frame.get("y", "nan")) + float(frame.get("height", "nan")) / 2
+    assert float(dot.get("cx", "nan")) == pytest.approx(mid_x, abs=0.1)
+    assert float(dot.get("cy", "nan")) == pytest.approx(mid_y, abs=0.1)
+
+
+def test_points_off_the_chart_get_an_edge_arrow_and_their_values():
+    points = [ZonePoint("FAR-HIGH", 0.0, 0.35, "incompatible"),
+              ZonePoint("FAR-LEFT", -0.25, 0.0, "conditional")]
+    root = parse(zone_diagram(points, iec_polygons()))
+    shown = texts(root)
+    assert "FAR-HIGH (f +0.0 %, V +35.0 %)" in shown
+    assert "FAR-LEFT (f -25.0 %, V +0.0 %)" in shown
+    frame = next(r for r in root.iter(f"{NS}rect") if r.get("stroke") == "#444")
+    top, left = float(frame.get("y", "nan")), float(frame.get("x", "nan"))
+    arrows = {el.find(f"{NS}title").text.split(":")[0]: el for el in root.iter(f"{NS}polygon")
+              if el.find(f"{NS}title") is not None and "off the chart" in el.find(f"{NS}title").text}
+    assert set(arrows) == {"FAR-HIGH", "FAR-LEFT"}
+    tip_high = tuple(map(float, arrows["FAR-HIGH"].get("points", "").split()[0].split(",")))
+    tip_left = tuple(map(float, arrows["FAR-LEFT"].get("points", "").split()[0].split(",")))
+    assert tip_high[1] == pytest.approx(top)  # on the top edge, pointing up
+    assert tip_left[0] == pytest.approx(left)
+    assert "arrow: off the chart, values given" in shown
+
+
+def test_crowded_zone_diagram_layout_is_clean():
+    assert_layout_clean(zone_diagram_canvas(crowded_points(), iec_polygons()))
+
+
+def test_many_points_at_one_spot_all_get_labels_inside_the_drawing():
+    points = [ZonePoint(f"SAME-SPOT-MACHINE-{i:03d}", 0.01, -0.02, "conditional") for i in range(60)]
+    canvas = zone_diagram_canvas(points, iec_polygons())
+    assert_layout_clean(canvas)
+    shown = [t.text for t in canvas.texts]
+    assert all(p.label in shown for p in points)
+
+
+def test_non_finite_points_are_refused_not_dropped():
+    with pytest.raises(ValueError, match="PUMP-1"):
+        zone_diagram([ZonePoint("PUMP-1", math.nan, 0.0)], iec_polygons())
+
+
+# --- escaping, determinism, estimates ----------------------------------------------------------
+
+@pytest.mark.parametrize("name", HOSTILE)
+def test_hostile_names_are_escaped_in_every_chart(name):
+    charts = [
+        zone_diagram([ZonePoint(name, 0.01, 0.01, "compatible")], iec_polygons(), title=name),
+        curves_chart([Series(name, [(0.0, 1.0), (1.0, 2.0)])], x_label=name, x_unit="rpm",
+                     y_label="torque", y_unit="N m", title=name),
+        derating_waterfall([WaterfallStep(name, 10.0), WaterfallStep("available", 9.0)],
+                           title=name),
+    ]
+    for svg in charts:
+        root = parse(svg)  # would raise on broken markup
+        assert_self_contained(root)
+        assert root.get("aria-label") == cleaned(name)
+        assert any(cleaned(name) in t for t in texts(root))
+
+
+def test_escape_turns_controls_and_bidi_overrides_into_spaces():
+    assert esc("a\x00b\u202ec<&>\"'") == "a b c&lt;&amp;&gt;&quot;&#x27;"
+
+
+def test_same_input_same_svg_whatever_the_order_of_points():
+    points = crowded_points()
+    first = zone_diagram(points, iec_polygons())
+    assert zone_diagram(points, iec_polygons()) == first
+    assert zone_diagram(list(reversed(points)), iec_polygons()) == first
+    args = dict(x_label="speed", x_unit="rpm", y_label="torque", y_unit="% of rated")
+    assert (curves_chart(torque_series(), markers=torque_markers(), **args)
+            == curves_chart(torque_series(), markers=torque_markers(), **args))
+    assert derating_waterfall(waterfall_steps()) == derating_waterfall(waterfall_steps())
+
+
+def test_every_text_element_has_its_estimated_box():
+    canvas = zone_diagram_canvas(crowded_points(), iec_polygons())
+    assert len(texts(parse(canvas.svg()))) == len(canvas.texts)
+
+
+def test_width_estimate_grows_with_characters_and_size():
+    assert text_width("MMMM", 10) > text_width("iiii", 10) > 0
+    assert text_width("PUMP-1", 20) == pytest.approx(2 * text_width("PUMP-1", 10))
+
+
+names = st.text(alphabet=st.characters(min_codepoint=32, max_codepoint=0x24F), min_size=1,
+                max_size=28)
+
+
+@settings(max_examples=40, deadline=None, derandomize=True)
+@given(st.lists(st.tuples(names, st.floats(-0.3, 0.3), st.floats(-0.4, 0.4),
+                          st.sampled_from(["compatible", "conditional", "incompatible", ""]),
+                          st.booleans()), max_size=25))
+def test_any_zone_layout_is_clean(rows):
+    points = [ZonePoint(*row) for row in rows]
+    canvas = zone_diagram_canvas(points, iec_polygons())
+    assert_layout_clean(canvas)
+    assert len(canvas.texts) >= len(points)
