@@ -21,6 +21,7 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from machinecheck.report.charts import (
+    PointMarker,
     Series,
     WaterfallStep,
     ZonePoint,
@@ -281,3 +282,34 @@ def test_any_zone_layout_is_clean(rows):
     canvas = zone_diagram_canvas(points, iec_polygons())
     assert_layout_clean(canvas)
     assert len(canvas.texts) >= len(points)
+
+
+values = st.floats(-1e6, 1e6, allow_nan=False)
+
+
+@settings(max_examples=30, deadline=None, derandomize=True)
+@given(st.lists(st.tuples(names, st.lists(st.tuples(values, values), max_size=30)), max_size=6),
+       st.lists(st.tuples(names, values, values), max_size=8))
+def test_any_curves_layout_is_clean(rows, marks):
+    series = [Series(name, points) for name, points in rows]
+    markers = [PointMarker(*m) for m in marks]
+    canvas = curves_chart_canvas(series, x_label="speed", x_unit="rpm", y_label="current",
+                                 y_unit="A", markers=markers)
+    assert_layout_clean(canvas)
+    assert len(canvas.texts) >= len(series) + len(markers) + 2
+
+
+@settings(max_examples=30, deadline=None, derandomize=True)
+@given(st.lists(st.tuples(names, st.floats(0, 1e5), st.none() | st.floats(0.5, 1.2)), min_size=2,
+                max_size=10))
+def test_any_waterfall_layout_is_clean(rows):
+    canvas = derating_waterfall_canvas([WaterfallStep(*row) for row in rows])
+    assert_layout_clean(canvas)
+
+
+def test_titles_longer_than_the_plot_shift_the_drawing_instead_of_leaving_it():
+    canvas = curves_chart_canvas([Series("motor", [(0.0, 1.0), (1500.0, 2.0)])],
+                                 x_label="shaft speed " * 12, x_unit="rpm",
+                                 y_label="torque at the coupling " * 6, y_unit="N m")
+    assert_layout_clean(canvas)
+    assert canvas.svg().count('<g transform="translate(') == 1

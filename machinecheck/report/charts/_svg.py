@@ -122,19 +122,28 @@ class Canvas:
         self.elements.append(element)
 
     def text(self, x: float, y: float, content: str, *, size: float, anchor: str = "start",
-             fill: str = "#111", bold: bool = False, vertical: bool = False) -> Box:
-        """Add a text element at (x, baseline y); ``vertical`` turns it to read upwards."""
+             fill: str = "#111") -> Box:
+        """Add a text element at (x, baseline y)."""
         box = text_box(x, y, content, size, anchor)
         attrs = (f'x="{fmt(x)}" y="{fmt(y)}" font-size="{size:g}" fill="{fill}"'
-                 + (f' text-anchor="{anchor}"' if anchor != "start" else "")
-                 + (' font-weight="bold"' if bold else ""))
-        if vertical:
-            attrs += f' transform="rotate(-90 {fmt(x)} {fmt(y)})"'
-            # turned about (x, y): (x + dx, y + dy) is drawn at (x + dy, y - dx)
-            box = Box(x + box.y0 - y, y - (box.x1 - x), x + box.y1 - y, y - (box.x0 - x))
+                 + (f' text-anchor="{anchor}"' if anchor != "start" else ""))
         self.elements.append(f"<text {attrs}>{esc(content)}</text>")
         self.texts.append(TextItem(content, box))
         return box
+
+    def fit(self, min_width: float, min_height: float, margin: float = 8.0) -> None:
+        """Size the drawing to hold every text with a margin, in whole units, never smaller than
+        the minimum given; a text reaching past the left or top edge shifts the whole drawing."""
+        dx = max([0.0] + [margin - t.box.x0 for t in self.texts])
+        dy = max([0.0] + [margin - t.box.y0 for t in self.texts])
+        dx, dy = float(math.ceil(dx)), float(math.ceil(dy))
+        if dx or dy:
+            self.elements = [f'<g transform="translate({fmt(dx)} {fmt(dy)})">', *self.elements,
+                             "</g>"]
+            self.texts = [TextItem(t.text, Box(t.box.x0 + dx, t.box.y0 + dy, t.box.x1 + dx,
+                                               t.box.y1 + dy)) for t in self.texts]
+        self.width = float(math.ceil(max([min_width + dx] + [t.box.x1 + margin for t in self.texts])))
+        self.height = float(math.ceil(max([min_height + dy] + [t.box.y1 + margin for t in self.texts])))
 
     def svg(self) -> str:
         """The finished inline SVG element."""

@@ -6,11 +6,11 @@ import math
 from collections.abc import Sequence
 from dataclasses import dataclass
 
-from ._svg import Box, Canvas, Scale, esc, fmt, nice_ticks, tick_text
+from ._svg import Box, Canvas, Scale, esc, fmt, nice_ticks, text_width, tick_text
 from .labels import Anchor, place_labels
 from .legend import Symbol, legend_row, line_sample
 
-_LEFT, _TOP, _PLOT_W, _PLOT_H = 64.0, 14.0, 440.0, 280.0
+_TOP, _PLOT_W, _PLOT_H = 30.0, 440.0, 280.0  # the y axis title sits above the plot
 _LABEL_SIZE, _TICK_SIZE, _TITLE_SIZE = 10.0, 10.0, 11.0
 #: (colour, dash pattern) per series in order: told apart by dash in grey print too.
 SERIES_STYLES = (("#1f4e9c", ""), ("#c0271b", "7 4"), ("#2a7d2a", "2 3"), ("#7a3d9c", "9 3 2 3"),
@@ -50,12 +50,14 @@ def curves_chart_canvas(series: Sequence[Series], *, x_label: str, x_unit: str, 
             raise ValueError(f"chart point {m.label!r} has no finite value")
     xs = [x for s in series for x, y in s.points if _finite(x, y)] + [m.x for m in markers]
     ys = [y for s in series for x, y in s.points if _finite(x, y)] + [m.y for m in markers]
-    xticks = nice_ticks(min([0.0] + xs), max([1e-9] + xs))
-    y_lo, y_hi = min([0.0] + ys), max([1e-9] + ys)
+    xticks = nice_ticks(min([0.0] + xs), max(xs, default=1.0))
+    y_lo, y_hi = min([0.0] + ys), max(ys, default=1.0)
     yticks = nice_ticks(y_lo, y_hi + 0.04 * (y_hi - y_lo))  # headroom for labels over the peak
-    sx = Scale(xticks[0], xticks[-1], _LEFT, _LEFT + _PLOT_W)
+    y_texts = [tick_text(t, yticks[1] - yticks[0]) for t in yticks]
+    left = 8 + max(text_width(t, _TICK_SIZE) for t in y_texts) + 5  # room for the widest tick value
+    sx = Scale(xticks[0], xticks[-1], left, left + _PLOT_W)
     sy = Scale(yticks[0], yticks[-1], _TOP + _PLOT_H, _TOP)
-    plot = Box(_LEFT, _TOP, _LEFT + _PLOT_W, _TOP + _PLOT_H)
+    plot = Box(left, _TOP, left + _PLOT_W, _TOP + _PLOT_H)
     canvas = Canvas(title or f"{y_label} against {x_label}")
     canvas.add(f'<rect x="{fmt(plot.x0)}" y="{fmt(plot.y0)}" width="{fmt(_PLOT_W)}" '
                f'height="{fmt(_PLOT_H)}" fill="#fff" stroke="#444" stroke-width="1"/>')
@@ -63,18 +65,16 @@ def curves_chart_canvas(series: Sequence[Series], *, x_label: str, x_unit: str, 
         x = sx(t)
         canvas.add(f'<line x1="{fmt(x)}" y1="{fmt(plot.y0)}" x2="{fmt(x)}" y2="{fmt(plot.y1)}" '
                    f'stroke="{"#222" if t == 0 else "#ccc"}" stroke-width="0.5"/>')
-        canvas.text(x, plot.y1 + 14, tick_text(t, xticks[1] - xticks[0]), size=_TICK_SIZE,
+        canvas.text(x, plot.y1 + 18, tick_text(t, xticks[1] - xticks[0]), size=_TICK_SIZE,
                     anchor="middle")
-    for t in yticks:
+    for t, shown in zip(yticks, y_texts):
         y = sy(t)
         canvas.add(f'<line x1="{fmt(plot.x0)}" y1="{fmt(y)}" x2="{fmt(plot.x1)}" y2="{fmt(y)}" '
                    f'stroke="{"#222" if t == 0 else "#ccc"}" stroke-width="0.5"/>')
-        canvas.text(plot.x0 - 5, y + 3.5, tick_text(t, yticks[1] - yticks[0]), size=_TICK_SIZE,
-                    anchor="end")
-    canvas.text((plot.x0 + plot.x1) / 2, plot.y1 + 32, f"{x_label}, {x_unit}", size=_TITLE_SIZE,
+        canvas.text(plot.x0 - 5, y + 3.5, shown, size=_TICK_SIZE, anchor="end")
+    canvas.text((plot.x0 + plot.x1) / 2, plot.y1 + 36, f"{x_label}, {x_unit}", size=_TITLE_SIZE,
                 anchor="middle")
-    canvas.text(16, (plot.y0 + plot.y1) / 2, f"{y_label}, {y_unit}", size=_TITLE_SIZE,
-                anchor="middle", vertical=True)
+    canvas.text(8, 16, f"{y_label}, {y_unit}", size=_TITLE_SIZE)
 
     soft: list[tuple[float, float]] = []
     entries: list[tuple[str, Symbol]] = []
@@ -99,7 +99,7 @@ def curves_chart_canvas(series: Sequence[Series], *, x_label: str, x_unit: str, 
         empty = not any(runs)
         entries.append((s.name + (" (no values)" if empty else ""), line_sample(colour, dash)))
 
-    bottom = legend_row(canvas, entries, left=plot.x0, top=plot.y1 + 44, right=plot.x1)
+    bottom = legend_row(canvas, entries, left=plot.x0, top=plot.y1 + 48, right=plot.x1)
     ordered = sorted(markers, key=lambda m: (sy(m.y), sx(m.x), m.label))
     obstacles = [Box(sx(m.x) - 5, sy(m.y) - 5, sx(m.x) + 5, sy(m.y) + 5) for m in ordered]
     obstacles += [t.box for t in canvas.texts]  # axis texts and legend stay clear too
@@ -116,9 +116,7 @@ def curves_chart_canvas(series: Sequence[Series], *, x_label: str, x_unit: str, 
             canvas.add(f'<line x1="{fmt(x0)}" y1="{fmt(y0)}" x2="{fmt(x1)}" y2="{fmt(y1)}" '
                        'stroke="#666" stroke-width="0.7"/>')
         canvas.text(where.x, where.y, m.label, size=_LABEL_SIZE)
-    boxes = [t.box for t in canvas.texts]
-    canvas.width = max([plot.x1 + 16] + [b.x1 + 8 for b in boxes])
-    canvas.height = max([bottom + 8] + [b.y1 + 8 for b in boxes])
+    canvas.fit(plot.x1 + 16, bottom + 8)
     return canvas
 
 

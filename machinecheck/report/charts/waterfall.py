@@ -78,11 +78,7 @@ def derating_waterfall_canvas(steps: Sequence[WaterfallStep], *, unit: str = "kW
                    'stroke="#222" stroke-width="0.8"/>')
         canvas.text(x, axis_y + 16, tick_text(t, step), size=_TICK_SIZE, anchor="middle")
     canvas.text(sx(ticks[-1]), axis_y + 32, f"output, {unit}", size=_TICK_SIZE, anchor="end")
-    boxes = [t.box for t in canvas.texts]
-    canvas.width = max([bars_x0 + _BARS_W + 16] + [b.x1 + 8 for b in boxes])
-    canvas.height = max(b.y1 for b in boxes) + 8
-    if min(b.x0 for b in boxes) < 0:  # a label left of the drawing cannot happen: names set the width
-        raise AssertionError("waterfall layout put a label outside the drawing")
+    canvas.fit(bars_x0 + _BARS_W + 16, 0.0)
     return canvas
 
 

@@ -10,7 +10,7 @@ from ._svg import Box, Canvas, Scale, esc, fmt, nice_ticks, tick_text
 from .labels import Anchor, place_labels
 from .legend import VERDICT_COLOUR, Symbol, legend_row, marker
 
-_LEFT, _TOP, _PLOT_W, _PLOT_H = 60.0, 14.0, 440.0, 330.0
+_LEFT, _TOP, _PLOT_W, _PLOT_H = 44.0, 30.0, 440.0, 330.0  # the y axis title sits above the plot
 _LABEL_SIZE, _TICK_SIZE, _TITLE_SIZE = 10.0, 10.0, 11.0
 _ZONE_FILLS = ("#fdf0c8", "#d8efd4", "#dbe9f7", "#eadcf2")
 
@@ -84,7 +84,7 @@ def zone_diagram_canvas(points: Sequence[ZonePoint], polygons: Sequence[ZonePoly
         colour, width = ("#222", "0.9") if t == 0 else ("#ccc", "0.5")
         canvas.add(f'<line x1="{fmt(x)}" y1="{fmt(plot.y0)}" x2="{fmt(x)}" y2="{fmt(plot.y1)}" '
                    f'stroke="{colour}" stroke-width="{width}"/>')
-        canvas.text(x, plot.y1 + 14, tick_text(t, fticks[1] - fticks[0]), size=_TICK_SIZE,
+        canvas.text(x, plot.y1 + 18, tick_text(t, fticks[1] - fticks[0]), size=_TICK_SIZE,
                     anchor="middle")
     for t in vticks:
         y = sy(t / 100)
@@ -93,10 +93,9 @@ def zone_diagram_canvas(points: Sequence[ZonePoint], polygons: Sequence[ZonePoly
                    f'stroke="{colour}" stroke-width="{width}"/>')
         canvas.text(plot.x0 - 5, y + 3.5, tick_text(t, vticks[1] - vticks[0]), size=_TICK_SIZE,
                     anchor="end")
-    canvas.text((plot.x0 + plot.x1) / 2, plot.y1 + 32, "frequency deviation, %", size=_TITLE_SIZE,
+    canvas.text((plot.x0 + plot.x1) / 2, plot.y1 + 36, "frequency deviation, %", size=_TITLE_SIZE,
                 anchor="middle")
-    canvas.text(16, (plot.y0 + plot.y1) / 2, voltage_axis, size=_TITLE_SIZE, anchor="middle",
-                vertical=True)
+    canvas.text(8, 16, voltage_axis, size=_TITLE_SIZE)
 
     # anchors: zone names first (under the left end of each zone's top edge), then the points
     anchors: list[Anchor] = []
@@ -134,7 +133,7 @@ def zone_diagram_canvas(points: Sequence[ZonePoint], polygons: Sequence[ZonePoly
     if off_chart:
         items.append(("arrow: off the chart, values given", "", False, (1.0, 0.0)))
     entries = [(text, _symbol(verdict, hollow, out)) for text, verdict, hollow, out in items]
-    bottom = legend_row(canvas, entries, left=plot.x0, top=plot.y1 + 44, right=plot.x1)
+    bottom = legend_row(canvas, entries, left=plot.x0, top=plot.y1 + 48, right=plot.x1)
     obstacles += [t.box for t in canvas.texts]  # axis texts and legend stay clear too
     placed = place_labels(anchors, font_size=_LABEL_SIZE, area=plot, obstacles=obstacles, soft=soft,
                           stack_x=plot.x1 + 24, stack_top=plot.y0)
@@ -148,13 +147,10 @@ def zone_diagram_canvas(points: Sequence[ZonePoint], polygons: Sequence[ZonePoly
             x0, y0, x1, y1 = where.leader
             canvas.add(f'<line x1="{fmt(x0)}" y1="{fmt(y0)}" x2="{fmt(x1)}" y2="{fmt(y1)}" '
                        'stroke="#666" stroke-width="0.7"/>')
-        bold = where in placed[:n_zone_names]
-        canvas.text(where.x, where.y, where.anchor.text, size=_LABEL_SIZE, bold=bold,
-                    fill="#333" if bold else "#111")
-
-    boxes = [t.box for t in canvas.texts]
-    canvas.width = max([plot.x1 + 16] + [b.x1 + 8 for b in boxes])
-    canvas.height = max([bottom + 8] + [b.y1 + 8 for b in boxes])
+        zone_name = where in placed[:n_zone_names]
+        canvas.text(where.x, where.y, where.anchor.text, size=_LABEL_SIZE,
+                    fill="#555" if zone_name else "#111")
+    canvas.fit(plot.x1 + 16, bottom + 8)
     return canvas
 
 
