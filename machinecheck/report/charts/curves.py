@@ -7,7 +7,7 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 
 from ._svg import Box, Canvas, Scale, esc, fmt, nice_ticks, text_width, tick_text
-from .labels import Anchor, place_labels
+from .labels import group_points, place_labels
 from .legend import Symbol, legend_row, line_sample
 
 _TOP, _PLOT_W, _PLOT_H = 30.0, 440.0, 280.0  # the y axis title sits above the plot
@@ -103,19 +103,20 @@ def curves_chart_canvas(series: Sequence[Series], *, x_label: str, x_unit: str, 
     ordered = sorted(markers, key=lambda m: (sy(m.y), sx(m.x), m.label))
     obstacles = [Box(sx(m.x) - 5, sy(m.y) - 5, sx(m.x) + 5, sy(m.y) + 5) for m in ordered]
     obstacles += [t.box for t in canvas.texts]  # axis texts and legend stay clear too
-    anchors = [Anchor(sx(m.x), sy(m.y), m.label) for m in ordered]
+    for m in ordered:
+        canvas.add(f'<circle cx="{fmt(sx(m.x))}" cy="{fmt(sy(m.y))}" r="4" fill="#fff" '
+                   f'stroke="#111" stroke-width="1.8"><title>{esc(m.label)}: {m.x:g} '
+                   f"{esc(x_unit)}, {m.y:g} {esc(y_unit)}</title></circle>")
+    anchors = group_points([(sx(m.x), sy(m.y), m.label, 7.0) for m in ordered], reach=5.0)
     placed = place_labels(anchors, font_size=_LABEL_SIZE, area=plot, obstacles=obstacles, soft=soft,
                           stack_x=plot.x1 + 16, stack_top=plot.y0)
-    for m, where in zip(ordered, placed):
-        x, y = sx(m.x), sy(m.y)
-        canvas.add(f'<circle cx="{fmt(x)}" cy="{fmt(y)}" r="4" fill="#fff" stroke="#111" '
-                   f'stroke-width="1.8"><title>{esc(m.label)}: {m.x:g} {esc(x_unit)}, '
-                   f"{m.y:g} {esc(y_unit)}</title></circle>")
+    for where in placed:
         if where.leader:
             x0, y0, x1, y1 = where.leader
             canvas.add(f'<line x1="{fmt(x0)}" y1="{fmt(y0)}" x2="{fmt(x1)}" y2="{fmt(y1)}" '
                        'stroke="#666" stroke-width="0.7"/>')
-        canvas.text(where.x, where.y, m.label, size=_LABEL_SIZE)
+        for line, baseline in zip(where.anchor.lines, where.baselines):
+            canvas.text(where.x, baseline, line, size=_LABEL_SIZE)
     canvas.fit(plot.x1 + 16, bottom + 8)
     return canvas
 

@@ -1,9 +1,11 @@
 """Deterministic label placement: labels never overlap one another and stay inside the drawing.
 
-Each label is tried, in order, at candidate spots around its point (right, left, the diagonals,
-above, below). When all of them are taken it moves out on rings of growing radius with a leader
-line back to its point. When the rings are full too it joins a stack column beside the plot (the
-drawing grows to hold it), again with a leader. Nothing is hidden or merged.
+Points closer together than their markers are wide form one group, labelled by one block that
+lists every name, one a line. Each label (or block) is tried, in order, at candidate spots
+around its point (right, left, the diagonals, above, below). When all of them are taken it
+moves out on rings of growing radius with a leader line back to its point. When the rings are
+full too it joins a stack column beside the plot (the drawing grows to hold it), again with a
+leader. Nothing is hidden or merged into a count.
 """
 
 from __future__ import annotations
@@ -19,28 +21,51 @@ NEAR_ORDER = ("right", "left", "above-right", "below-right", "above-left", "belo
               "below")
 _RINGS = 12
 _ANGLE_STEP_DEG = 11.25
+#: Extra space between the lines of one block [em].
+_LINE_GAP_EM = 0.1
 
 
 @dataclass(frozen=True)
 class Anchor:
-    """A point (drawing units) whose label must be placed."""
+    """A point (drawing units) whose label lines must be placed together."""
 
     x: float
     y: float
-    text: str
+    lines: tuple[str, ...]
     clearance: float = 7.0
     order: tuple[str, ...] = NEAR_ORDER
 
 
 @dataclass(frozen=True)
 class Placement:
-    """Where a label went: text start x, baseline y, its box and an optional leader line."""
+    """Where a label went: text start x, the baseline of each line, its box, an optional leader."""
 
     anchor: Anchor
     x: float
-    y: float
+    baselines: tuple[float, ...]
     box: Box
     leader: tuple[float, float, float, float] | None
+
+
+def group_points(points: Sequence[tuple[float, float, str, float]], reach: float) -> list[Anchor]:
+    """Anchors for labelled points (x, y, text, clearance): points within ``reach`` of another
+    point of a group join it (single linkage); a group is anchored at its mean position and
+    lists its texts in order of text. Groups come in order of position; the result does not
+    depend on the order of ``points``."""
+    ordered = sorted(points, key=lambda p: (p[1], p[0], p[2]))
+    groups: list[list[tuple[float, float, str, float]]] = []
+    for p in ordered:
+        joined = [g for g in groups if any(math.hypot(p[0] - q[0], p[1] - q[1]) <= reach for q in g)]
+        merged = [p] + [q for g in joined for q in g]
+        groups = [g for g in groups if g not in joined] + [merged]
+    anchors = []
+    for g in groups:
+        x = sum(p[0] for p in g) / len(g)
+        y = sum(p[1] for p in g) / len(g)
+        texts = tuple(sorted(p[2] for p in g))
+        anchors.append(Anchor(x, y, texts, clearance=max(p[3] for p in g) + (reach if len(g) > 1
+                                                                              else 0.0)))
+    return sorted(anchors, key=lambda a: (a.y, a.x, a.lines))
 
 
 def _near_box(name: str, a: Anchor, w: float, h: float) -> Box:
@@ -58,8 +83,8 @@ def _near_box(name: str, a: Anchor, w: float, h: float) -> Box:
     return Box(left, top, left + w, top + h)
 
 
-def _ring_boxes(a: Anchor, w: float, h: float, ring: int) -> list[Box]:
-    radius = a.clearance + ring * (h + 3.0)
+def _ring_boxes(a: Anchor, w: float, h: float, ring: int, line_h: float) -> list[Box]:
+    radius = a.clearance + ring * (line_h + 3.0)
     boxes = []
     for k in range(int(180 / _ANGLE_STEP_DEG) * 2):
         step = (k + 1) // 2 * (1 if k % 2 else -1)  # 0, +1, -1, +2, -2 ... (right side first)
@@ -79,7 +104,7 @@ def place_labels(anchors: Sequence[Anchor], *, font_size: float, area: Box,
 
     Parameters
     ----------
-    anchors : points with their label texts, placed in this order
+    anchors : points with their label lines, placed in this order
     font_size : font size of the labels [px]
     area : labels next to their points stay inside this box
     obstacles : boxes no label may cover (point markers, fixed text); leaders may cross them
@@ -88,7 +113,8 @@ def place_labels(anchors: Sequence[Anchor], *, font_size: float, area: Box,
         that column may run past ``area``: the caller sizes the drawing from the boxes
     gap : least clearance between two labels [px]
     """
-    h = (ASCENT_EM + DESCENT_EM) * font_size
+    line_h = (ASCENT_EM + DESCENT_EM) * font_size
+    step_h = line_h + _LINE_GAP_EM * font_size
     taken: list[Box] = []
     placements: list[Placement] = []
     stack_next = stack_top
@@ -105,7 +131,8 @@ def place_labels(anchors: Sequence[Anchor], *, font_size: float, area: Box,
         return not any(t.crossed_by(a.x, a.y, x1, y1) for t in taken)
 
     for a in anchors:
-        w = text_width(a.text, font_size)
+        w = max(text_width(line, font_size) for line in a.lines)
+        h = line_h + (len(a.lines) - 1) * step_h
         chosen: Box | None = None
         leader = False
         near = [b for b in (_near_box(n, a, w, h) for n in a.order) if free(b)]
@@ -113,7 +140,8 @@ def place_labels(anchors: Sequence[Anchor], *, font_size: float, area: Box,
             chosen = min(near, key=hits)  # min keeps the first of equals: deterministic
         else:
             for ring in range(1, _RINGS + 1):
-                ring_ok = [b for b in _ring_boxes(a, w, h, ring) if free(b) and leader_clear(a, b)]
+                ring_ok = [b for b in _ring_boxes(a, w, h, ring, line_h)
+                           if free(b) and leader_clear(a, b)]
                 if ring_ok:
                     chosen, leader = min(ring_ok, key=hits), True
                     break
@@ -128,5 +156,7 @@ def place_labels(anchors: Sequence[Anchor], *, font_size: float, area: Box,
             x1, y1 = chosen.nearest_point(a.x, a.y)
             line = (a.x, a.y, x1, y1)
         taken.append(chosen)
-        placements.append(Placement(a, chosen.x0, chosen.y0 + ASCENT_EM * font_size, chosen, line))
+        first = chosen.y0 + ASCENT_EM * font_size
+        baselines = tuple(first + i * step_h for i in range(len(a.lines)))
+        placements.append(Placement(a, chosen.x0, baselines, chosen, line))
     return placements

@@ -7,11 +7,13 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 
 from ._svg import Box, Canvas, Scale, esc, fmt, nice_ticks, tick_text
-from .labels import Anchor, place_labels
+from .labels import Anchor, group_points, place_labels
 from .legend import VERDICT_COLOUR, Symbol, legend_row, marker
 
 _LEFT, _TOP, _PLOT_W, _PLOT_H = 44.0, 30.0, 440.0, 330.0  # the y axis title sits above the plot
 _LABEL_SIZE, _TICK_SIZE, _TITLE_SIZE = 10.0, 10.0, 11.0
+#: Points closer than this share one label block [px] (their markers overlap).
+_GROUP_REACH = 6.0
 _ZONE_FILLS = ("#fdf0c8", "#d8efd4", "#dbe9f7", "#eadcf2")
 
 
@@ -103,7 +105,7 @@ def zone_diagram_canvas(points: Sequence[ZonePoint], polygons: Sequence[ZonePoly
         inside = [(f, v) for f, v in polygon.vertices if f0 <= f <= f1 and v0 <= v <= v1]
         if inside:
             f, v = max(inside, key=lambda p: (p[1], -p[0]))
-            anchors.append(Anchor(sx(f), sy(v), polygon.name, clearance=3.0,
+            anchors.append(Anchor(sx(f), sy(v), (polygon.name,), clearance=3.0,
                                   order=("below-right", "below-left", "right", "left")))
     n_zone_names = len(anchors)
     obstacles: list[Box] = []
@@ -120,11 +122,10 @@ def zone_diagram_canvas(points: Sequence[ZonePoint], polygons: Sequence[ZonePoly
     on_chart = sorted((d for d in drawn if d[3] == (0.0, 0.0)), key=lambda d: (d[2], d[1], d[0].label))
     off_chart = sorted((d for d in drawn if d[3] != (0.0, 0.0)), key=lambda d: (d[2], d[1], d[0].label))
     ordered = on_chart + off_chart
-    for p, x, y, out in ordered:
-        text = p.label
-        if out != (0.0, 0.0):
-            text += f" (f {_pct(p.frequency_deviation_pu)}, V {_pct(p.voltage_deviation_pu)})"
-        anchors.append(Anchor(x, y, text, clearance=7.0 if out == (0.0, 0.0) else 11.0))
+    labelled = [(x, y, p.label, 7.0) for p, x, y, _ in on_chart]
+    labelled += [(x, y, f"{p.label} (f {_pct(p.frequency_deviation_pu)}, "
+                        f"V {_pct(p.voltage_deviation_pu)})", 11.0) for p, x, y, _ in off_chart]
+    anchors += group_points(labelled, reach=_GROUP_REACH)
     # legend of the markers in use
     kinds = sorted({p.verdict for p in points}, key=lambda v: (v not in VERDICT_COLOUR, v))
     items = [(k or "no verdict", k, False, (0.0, 0.0)) for k in kinds]
@@ -148,8 +149,8 @@ def zone_diagram_canvas(points: Sequence[ZonePoint], polygons: Sequence[ZonePoly
             canvas.add(f'<line x1="{fmt(x0)}" y1="{fmt(y0)}" x2="{fmt(x1)}" y2="{fmt(y1)}" '
                        'stroke="#666" stroke-width="0.7"/>')
         zone_name = where in placed[:n_zone_names]
-        canvas.text(where.x, where.y, where.anchor.text, size=_LABEL_SIZE,
-                    fill="#555" if zone_name else "#111")
+        for line, baseline in zip(where.anchor.lines, where.baselines):
+            canvas.text(where.x, baseline, line, size=_LABEL_SIZE, fill="#555" if zone_name else "#111")
     canvas.fit(plot.x1 + 16, bottom + 8)
     return canvas
 
