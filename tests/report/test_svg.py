@@ -313,3 +313,27 @@ def test_titles_longer_than_the_plot_shift_the_drawing_instead_of_leaving_it():
                                  y_label="torque at the coupling " * 6, y_unit="N m")
     assert_layout_clean(canvas)
     assert canvas.svg().count('<g transform="translate(') == 1
+
+
+def test_points_sharing_a_spot_are_listed_in_one_block_in_name_order():
+    names = ["PUMP-C", "PUMP-A", "FAN-B"]
+    points = [ZonePoint(n, 0.01 + 0.0002 * i, -0.02, "conditional") for i, n in enumerate(names)]
+    canvas = zone_diagram_canvas(points, iec_polygons())
+    block = [t for t in canvas.texts if t.text in names]
+    assert [t.text for t in block] == sorted(names)
+    assert len({round(t.box.x0, 6) for t in block}) == 1  # one column
+    tops = [t.box.y0 for t in block]
+    assert all(b > a for a, b in zip(tops, tops[1:]))
+    assert_layout_clean(canvas)
+
+
+def test_points_apart_get_labels_of_their_own_beside_them():
+    points = [ZonePoint("LEFT-ONE", -0.04, 0.0, "compatible"),
+              ZonePoint("RIGHT-ONE", 0.04, 0.0, "compatible")]
+    canvas = zone_diagram_canvas(points, iec_polygons())
+    root = parse(canvas.svg())
+    dots = {c.find(f"{NS}title").text.split(":")[0]: float(c.get("cx", "nan"))
+            for c in root.iter(f"{NS}circle") if c.find(f"{NS}title") is not None}
+    for t in canvas.texts:
+        if t.text in dots:  # right of its own dot, within a few pixels
+            assert 0 < t.box.x0 - dots[t.text] < 12, t.text
