@@ -173,14 +173,26 @@ def nice_ticks(lo: float, hi: float, target: int = 6) -> list[float]:
     """Round tick values (1, 2, 2.5 or 5 times a power of ten) covering [lo, hi]."""
     if not (math.isfinite(lo) and math.isfinite(hi)):
         raise ValueError(f"axis range must be finite, got {lo!r} to {hi!r}")
-    if hi <= lo:
-        hi = lo + 1.0
+    if hi - lo <= 1e-6 * max(1.0, abs(lo), abs(hi)):  # one value, or a spread below display
+        hi = lo + max(1.0, 0.1 * abs(lo))
     raw = (hi - lo) / max(1, target)
     power = 10.0 ** math.floor(math.log10(raw))
     step = next(m * power for m in (1.0, 2.0, 2.5, 5.0, 10.0) if m * power >= raw)
     first = math.floor(lo / step + 1e-9)
     last = math.ceil(hi / step - 1e-9)
     return [round(i * step, 12) + 0.0 for i in range(first, last + 1)]
+
+
+def fitting_ticks(lo: float, hi: float, length: float, font_size: float,
+                  target: int = 6) -> list[float]:
+    """Nice ticks over [lo, hi], as many as up to ``target`` whose values fit side by side
+    along an axis ``length`` long [px]."""
+    for count in range(target, 0, -1):
+        ticks = nice_ticks(lo, hi, count)
+        widest = max(text_width(tick_text(t, ticks[1] - ticks[0]), font_size) for t in ticks)
+        if widest + 6 <= length / (len(ticks) - 1):
+            break
+    return ticks
 
 
 def tick_text(value: float, step: float) -> str:

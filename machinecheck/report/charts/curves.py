@@ -6,7 +6,7 @@ import math
 from collections.abc import Sequence
 from dataclasses import dataclass
 
-from ._svg import Box, Canvas, Scale, esc, fmt, nice_ticks, text_width, tick_text
+from ._svg import Box, Canvas, Scale, esc, fitting_ticks, fmt, nice_ticks, text_width, tick_text
 from .labels import group_points, place_labels
 from .legend import Symbol, legend_row, line_sample
 
@@ -50,7 +50,8 @@ def curves_chart_canvas(series: Sequence[Series], *, x_label: str, x_unit: str, 
             raise ValueError(f"chart point {m.label!r} has no finite value")
     xs = [x for s in series for x, y in s.points if _finite(x, y)] + [m.x for m in markers]
     ys = [y for s in series for x, y in s.points if _finite(x, y)] + [m.y for m in markers]
-    xticks = nice_ticks(min([0.0] + xs), max(xs, default=1.0))
+    x_lo, x_hi = min([0.0] + xs), max(xs, default=1.0)
+    xticks = fitting_ticks(x_lo, x_hi, _PLOT_W, _TICK_SIZE)
     y_lo, y_hi = min([0.0] + ys), max(ys, default=1.0)
     yticks = nice_ticks(y_lo, y_hi + 0.04 * (y_hi - y_lo))  # headroom for labels over the peak
     y_texts = [tick_text(t, yticks[1] - yticks[0]) for t in yticks]

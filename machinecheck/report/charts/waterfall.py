@@ -6,7 +6,7 @@ import math
 from collections.abc import Sequence
 from dataclasses import dataclass
 
-from ._svg import Canvas, Scale, esc, fmt, nice_ticks, text_width, tick_text
+from ._svg import Canvas, Scale, esc, fitting_ticks, fmt, text_width, tick_text
 
 _ROW_H, _BAR_H, _BARS_W, _TOP = 26.0, 15.0, 360.0, 10.0
 _NAME_SIZE, _VALUE_SIZE, _TICK_SIZE = 10.0, 10.0, 10.0
@@ -44,7 +44,7 @@ def derating_waterfall_canvas(steps: Sequence[WaterfallStep], *, unit: str = "kW
     decimals = _decimals(values)
     name_w = max(text_width(s.label, _NAME_SIZE) for s in steps)
     bars_x0 = 8 + name_w + 10
-    ticks = nice_ticks(min([0.0] + values), max(values), 5)
+    ticks = fitting_ticks(min([0.0] + values), max(values), _BARS_W, _TICK_SIZE, 5)
     sx = Scale(ticks[0], ticks[-1], bars_x0, bars_x0 + _BARS_W)
     canvas = Canvas(title)
     last = len(steps) - 1
