@@ -20,11 +20,13 @@ from chart_inputs import (
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
+from machinecheck.physics import tolerance
 from machinecheck.report.charts import (
     PointMarker,
     Series,
     WaterfallStep,
     ZonePoint,
+    ZonePolygon,
     curves_chart,
     curves_chart_canvas,
     derating_waterfall,
@@ -332,7 +334,8 @@ def test_points_sharing_a_spot_are_listed_in_one_block_in_name_order() -> None:
     canvas = zone_diagram_canvas(points, iec_polygons())
     block = [t for t in canvas.texts if t.text in names]
     assert [t.text for t in block] == sorted(names)
-    assert len({round(t.box.x0, 6) for t in block}) == 1  # one column
+    # one column, flush left or flush right
+    assert len({round(t.box.x0, 6) for t in block}) == 1 or len({round(t.box.x1, 6) for t in block}) == 1
     tops = [t.box.y0 for t in block]
     assert all(b > a for a, b in zip(tops, tops[1:]))
     assert_layout_clean(canvas)
@@ -348,3 +351,17 @@ def test_points_apart_get_labels_of_their_own_beside_them() -> None:
     for t in canvas.texts:
         if t.text in dots:  # right of its own dot, within a few pixels
             assert 0 < t.box.x0 - dots[t.text] < 12, t.text
+
+
+def test_any_outline_from_the_zone_table_is_drawn_whole() -> None:
+    nema = ZonePolygon("NEMA MG 1 12.44", tolerance.nema_outline())
+    root = parse(zone_diagram([ZonePoint("PUMP-1", 0.02, 0.03, "compatible")], [nema]))
+    drawn = [el for el in root.iter(f"{NS}polygon") if title_of(el) == "NEMA MG 1 12.44"]
+    assert len(drawn) == 1
+    assert len(num_pairs(drawn[0])) == len(nema.vertices)
+    assert "NEMA MG 1 12.44" in texts(root)
+
+
+def num_pairs(el: ET.Element) -> list[tuple[float, float]]:
+    pairs = [p.split(",") for p in el.get("points", "").split()]
+    return [(float(x), float(y)) for x, y in pairs]

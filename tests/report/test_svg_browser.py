@@ -79,8 +79,8 @@ def charts() -> list[Canvas]:
     same_spot = [ZonePoint(f"SAME-SPOT-MACHINE-{i:03d}", 0.01, -0.02, "conditional")
                  for i in range(40)]
     hostile = [ZonePoint(name, 0.005 * i, 0.01, "incompatible") for i, name in enumerate(HOSTILE)]
-    current = [Series("motor at rated supply", [(15.0 * k, 600 - 0.25 * k * k) for k in range(101)]),
-               Series("motor at site supply", [(15.0 * k, 560 - 0.24 * k * k) for k in range(101)])]
+    current = [Series("motor at rated supply", [(15.0 * k, 600 - 0.054 * k * k) for k in range(101)]),
+               Series("motor at site supply", [(15.0 * k, 560 - 0.050 * k * k) for k in range(101)])]
     return [
         zone_diagram_canvas(crowded_points(), iec_polygons()),
         zone_diagram_canvas(scattered, iec_polygons()),

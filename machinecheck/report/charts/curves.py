@@ -117,7 +117,7 @@ def curves_chart_canvas(series: Sequence[Series], *, x_label: str, x_unit: str, 
             canvas.add(f'<line x1="{fmt(x0)}" y1="{fmt(y0)}" x2="{fmt(x1)}" y2="{fmt(y1)}" '
                        'stroke="#666" stroke-width="0.7"/>')
         for line, baseline in zip(where.anchor.lines, where.baselines):
-            canvas.text(where.x, baseline, line, size=_LABEL_SIZE)
+            canvas.text(where.x, baseline, line, size=_LABEL_SIZE, anchor=where.text_anchor)
     canvas.fit(plot.x1 + 16, bottom + 8)
     return canvas
 

@@ -38,13 +38,29 @@ class Anchor:
 
 @dataclass(frozen=True)
 class Placement:
-    """Where a label went: text start x, the baseline of each line, its box, an optional leader."""
+    """Where a label went: the baseline of each line, its box, an optional leader line.
+
+    A label left of its point is set flush right (text-anchor end at ``box.x1``) so that it
+    hugs the point whatever the font; any other flush left at ``box.x0``.
+    """
 
     anchor: Anchor
-    x: float
     baselines: tuple[float, ...]
     box: Box
     leader: tuple[float, float, float, float] | None
+
+    @property
+    def flush_right(self) -> bool:
+        return self.box.x1 <= self.anchor.x
+
+    @property
+    def x(self) -> float:
+        """The x of the text elements (with :attr:`text_anchor`)."""
+        return self.box.x1 if self.flush_right else self.box.x0
+
+    @property
+    def text_anchor(self) -> str:
+        return "end" if self.flush_right else "start"
 
 
 def group_points(points: Sequence[tuple[float, float, str, float]], reach: float) -> list[Anchor]:
@@ -158,5 +174,5 @@ def place_labels(anchors: Sequence[Anchor], *, font_size: float, area: Box,
         taken.append(chosen)
         first = chosen.y0 + ASCENT_EM * font_size
         baselines = tuple(first + i * step_h for i in range(len(a.lines)))
-        placements.append(Placement(a, chosen.x0, baselines, chosen, line))
+        placements.append(Placement(a, baselines, chosen, line))
     return placements

@@ -150,7 +150,8 @@ def zone_diagram_canvas(points: Sequence[ZonePoint], polygons: Sequence[ZonePoly
                        'stroke="#666" stroke-width="0.7"/>')
         zone_name = where in placed[:n_zone_names]
         for line, baseline in zip(where.anchor.lines, where.baselines):
-            canvas.text(where.x, baseline, line, size=_LABEL_SIZE, fill="#555" if zone_name else "#111")
+            canvas.text(where.x, baseline, line, size=_LABEL_SIZE, anchor=where.text_anchor,
+                        fill="#555" if zone_name else "#111")
     canvas.fit(plot.x1 + 16, bottom + 8)
     return canvas
 
