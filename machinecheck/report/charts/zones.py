@@ -167,6 +167,8 @@ def zone_diagram(points: Sequence[ZonePoint], polygons: Sequence[ZonePolygon], *
     ----------
     points : operating points (deviations per unit), each labelled with its machine
     polygons : zone outlines in drawing order (outer first), e.g. IEC 60034-1 zones B then A
+        from ``physics.tolerance.iec_zone_outline``; corners outside the window are drawn at
+        its edge
     title : accessible title of the drawing
     frequency_range_pu, voltage_range_pu : plotted window [-]; points outside it are drawn as
         arrows at the edge, their labels giving the values
