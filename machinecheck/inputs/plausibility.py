@@ -15,6 +15,7 @@ from ..model import Rating
 from ..physics import plate
 from ..physics import speed as speed_physics
 from ..physics.current import apparent_power_current
+from .fields import field
 from .validate import Reader
 
 
@@ -28,8 +29,15 @@ def _implied_poles(r: Reader, rating: Rating, r_index: int, poles: int | None,
     key, sub = _speed_key(r_index)
     assert rating.speed_rpm is not None
     try:
-        return speed_physics.poles_from_speed(rating.speed_rpm, rating.frequency_hz,
-                                              synchronous=synchronous)
+        implied = speed_physics.poles_from_speed(rating.speed_rpm, rating.frequency_hz,
+                                                 synchronous=synchronous)
+        most = field("machine", "poles").high
+        if most is not None and implied > most:
+            r.fail(f"rated speed {rating.speed_rpm:g} rpm at {rating.frequency_hz:g} Hz would "
+                   f"mean {implied} poles (at most {most:g}): is a thousands separator or "
+                   "decimal comma misread (1.460 for 1460 rpm)?", key, sub)
+            return None
+        return implied
     except DomainError as exc:
         if poles is not None and not synchronous:
             n_s = speed_physics.synchronous_speed(rating.frequency_hz, poles)

@@ -47,15 +47,15 @@ def _too_deep(text: str) -> int | None:
     for ch in text:
         if ch == "\n":
             line += 1
-            if in_string in ('"', "'"):
+            if in_string in ('"', "'", "#"):
                 in_string = None
         elif in_string is not None:
-            if ch == in_string:
+            if ch == in_string and ch != "#":
                 in_string = None
         elif ch in "\"'":
             in_string = ch
         elif ch == "#":
-            in_string = "\n"
+            in_string = "#"  # a comment, to the end of the line
         elif ch in "[{":
             depth += 1
             if depth > MAX_DEPTH:
