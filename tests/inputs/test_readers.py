@@ -207,3 +207,18 @@ def test_deep_nesting_inside_strings_and_comments_is_no_nesting():
 
     text = '# ' + "[" * 100 + '\na = "' + "[" * 100 + '"\n'
     assert parse_toml(text, "t")["a"] == "[" * 100
+
+
+def test_integer_beyond_the_digit_limit_is_refused(write):
+    # written here, not in the corpus: other readers of the corpus must not meet it
+    path = write("huge.toml", '[[machine]]\nid = "A"\n[[machine.rating]]\nfrequency = "50 Hz"\n'
+                              f'voltage = {"4" * 5000}\npower = "4 kW"\nspeed = "1440 rpm"\n')
+    text = _errors(load_catalog, path)
+    assert "huge.toml" in text and "a number is too long to read" in text
+
+
+def test_integer_within_the_digit_limit_but_huge_is_refused(write):
+    path = write("huge.toml", '[[machine]]\nid = "A"\n[[machine.rating]]\nfrequency = "50 Hz"\n'
+                              f'voltage = {"4" * 400}\npower = "4 kW"\nspeed = "1440 rpm"\n')
+    text = _errors(load_catalog, path)
+    assert "huge.toml:5: 'A': rating[1].voltage: the integer with" in text and "too large" in text
