@@ -139,32 +139,55 @@ class Reader:
 
     def convert(self, f: Field, raw: Any) -> Any:
         """One raw value to its model value, checked against the field (InputError if not)."""
-        if f.kind in (TABLE, TABLES):
-            raise InputError(f"{f.key} must be a table")
-        if f.kind == TEXT:
-            return _text(f, raw)
-        if f.kind == CHOICE:
-            return _choice(f, raw)
-        if f.kind in (INTEGER, NUMBER):
-            return _number(f, raw)
-        if f.kind == SHARE_OR_TORQUE:
-            value, share = units.parse_share_or(raw, "torque")
-            low, high = (f.share_low, f.share_high) if share else (f.low, f.high)
-            _in_range(f, value, raw, low, high, share=share)
-            return value, share
-        if f.kind == CONDUCTOR_SIZE:
-            if isinstance(raw, str) and _AWG.match(raw):
-                return _AWG.match(raw).group(1), True  # type: ignore[union-attr]
-            value = units.parse(raw, "area", decimal_comma=self.decimal_comma)
-            _in_range(f, value, raw, f.low, f.high)
-            return value, False
-        if f.kind == "fraction" and isinstance(raw, (int, float)) and not isinstance(raw, bool) \
-                and 1 < raw <= 100:
-            raise InputError(f"{f.key.replace('_', ' ')} {raw!r} is above 1: write it as "
-                             f"'{raw} %' or as {raw / 100:g}")
-        value = units.parse(raw, f.kind, decimal_comma=self.decimal_comma)
+        return convert(f, raw, decimal_comma=self.decimal_comma)
+
+
+def parse_value(section: str, key: str, raw: Any, *, decimal_comma: bool = False) -> Any:
+    """One value read and checked by its field exactly as a file value is: for command-line
+    options and lookups. An error names the field's command-line option (or its key).
+
+    Examples: ``parse_value("rating", "power", "1/2 hp")`` -> 372.85 (W);
+    ``parse_value("site", "voltage", "400 kV")`` raises InputError naming ``--supply-voltage``.
+    """
+    f = field(section, key)
+    try:
+        return convert(f, raw, decimal_comma=decimal_comma)
+    except InputError as exc:
+        raise InputError(exc.message, key=f"--{f.option}" if f.option else key) from None
+
+
+def convert(f: Field, raw: Any, *, decimal_comma: bool = False) -> Any:
+    """One raw value to its model value, checked against the field (InputError if not).
+
+    A SHARE_OR_TORQUE value comes back as (value, is_share), a CONDUCTOR_SIZE as (mm2 or AWG
+    gauge text, is_awg); every other kind as its model value.
+    """
+    if f.kind in (TABLE, TABLES):
+        raise InputError(f"{f.key} must be a table")
+    if f.kind == TEXT:
+        return _text(f, raw)
+    if f.kind == CHOICE:
+        return _choice(f, raw)
+    if f.kind in (INTEGER, NUMBER):
+        return _number(f, raw)
+    if f.kind == SHARE_OR_TORQUE:
+        value, share = units.parse_share_or(raw, "torque")
+        low, high = (f.share_low, f.share_high) if share else (f.low, f.high)
+        _in_range(f, value, raw, low, high, share=share)
+        return value, share
+    if f.kind == CONDUCTOR_SIZE:
+        if isinstance(raw, str) and _AWG.match(raw):
+            return _AWG.match(raw).group(1), True  # type: ignore[union-attr]
+        value = units.parse(raw, "area", decimal_comma=decimal_comma)
         _in_range(f, value, raw, f.low, f.high)
-        return value
+        return value, False
+    if f.kind == "fraction" and isinstance(raw, (int, float)) and not isinstance(raw, bool) \
+            and 1 < raw <= 100:
+        raise InputError(f"{f.key.replace('_', ' ')} {raw!r} is above 1: write it as "
+                         f"'{raw} %' or as {raw / 100:g}")
+    value = units.parse(raw, f.kind, decimal_comma=decimal_comma)
+    _in_range(f, value, raw, f.low, f.high)
+    return value
 
 
 def _expected(f: Field) -> str:

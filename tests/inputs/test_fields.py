@@ -158,3 +158,16 @@ def test_sub_table_errors_name_the_key(section, table, words):
     assert isinstance(caught.value, ValueError)
     assert words in str(caught.value)
     assert "'P'" in str(caught.value)
+
+
+def test_one_value_for_the_command_line_is_checked_by_its_field():
+    from machinecheck.inputs.validate import parse_value
+
+    assert parse_value("rating", "power", "1/2 hp") == pytest.approx(372.85, rel=1e-4)
+    assert parse_value("rating", "power", "0,75 kW", decimal_comma=True) == 750.0
+    assert parse_value("site", "ambient", "45 °C") == 45.0
+    with pytest.raises(InputError) as caught:
+        parse_value("site", "voltage", "400 kV")
+    assert caught.value.key == "--supply-voltage"
+    with pytest.raises(InputError, match="finite"):
+        parse_value("rating", "speed", float("inf"))
