@@ -14,7 +14,7 @@ KINDS = ("induction-motor", "synchronous-motor", "synchronous-generator")
 STANDARDS = ("IEC", "NEMA")
 SYSTEMS = ("wye", "delta", "split-phase", "quadrature")
 START_METHODS = ("direct-on-line", "star-delta", "autotransformer", "soft-starter", "drive")
-TRIP_CLASSES = ("10A", "10", "20", "30")
+TRIP_CLASSES = ("5", "10A", "10", "20", "30")
 FEEDER_MATERIALS = ("copper", "aluminium")
 SOURCE_KINDS = ("utility", "transformer", "generator")
 
@@ -108,6 +108,7 @@ class Feeder:
     length_m: float
     size_mm2: float | None = None
     size_awg: str | None = None          # "2", "1/0" ... (converted by the cable table)
+    size_marked: str | None = None       # the size as written ("250 kcmil", "2 AWG", "35 mm2")
     material: str = "copper"
     parallel: int = 1
     resistance_ohm_per_m: float | None = None

@@ -388,6 +388,7 @@ def _feeder(r: Reader, entry: dict[str, Any]) -> Feeder | None:
     return Feeder(length_m=got["length"],
                   size_mm2=size[0] if size and not size[1] else None,
                   size_awg=size[0] if size and size[1] else None,
+                  size_marked=str(entry["feeder"].get("size", "")).strip() or None,
                   material=got["material"], parallel=got["parallel"],
                   resistance_ohm_per_m=got["resistance"], reactance_ohm_per_m=got["reactance"])
 

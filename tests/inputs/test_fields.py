@@ -123,6 +123,7 @@ def test_new_sections_are_read_into_the_model():
     assert m.circuit.r2_ohm == 0.10 and m.circuit.xm_ohm == 12.0
     assert (m.start.method, m.start.tap, m.start.trip_class) == ("autotransformer", 0.65, "20")
     assert m.feeder.size_awg == "2" and m.feeder.size_mm2 is None
+    assert m.feeder.size_marked == "2 AWG"
     assert m.feeder.material == "aluminium" and m.feeder.parallel == 2
     assert m.feeder.resistance_ohm_per_m == pytest.approx(0.00062)
     assert m.use.time_per_year_s == 6000 * 3600 and m.use.load_factor == 0.75
