@@ -222,3 +222,11 @@ def test_integer_within_the_digit_limit_but_huge_is_refused(write):
                               f'voltage = {"4" * 400}\npower = "4 kW"\nspeed = "1440 rpm"\n')
     text = _errors(load_catalog, path)
     assert "huge.toml:5: 'A': rating[1].voltage: the integer with" in text and "too large" in text
+
+
+def test_thousands_separator_in_a_decimal_comma_export_is_refused(write):
+    # "1.460" meaning 1460 rpm reads as 1.46 rpm: it would need thousands of poles
+    path = write("inv.csv", "id;frequency;voltage;power;speed\nM-1;50 Hz;400 V;11 kW;1.460\n")
+    text = _errors(load_catalog, path)
+    assert "inv.csv: row 2: 'M-1': column 'speed'" in text
+    assert "would mean 4108 poles (at most 200)" in text
