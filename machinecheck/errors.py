@@ -8,6 +8,8 @@ domain raises :class:`DomainError`. All subclass :class:`MachinecheckError` (a `
 
 from __future__ import annotations
 
+from collections.abc import Iterable
+
 
 class MachinecheckError(ValueError):
     """Base class of every error machinecheck raises on purpose."""
@@ -30,7 +32,9 @@ class InputError(MachinecheckError):
     column : CSV column name where the input is a spreadsheet
     """
 
-    def __init__(self, message, *, file=None, line=None, item=None, key=None, column=None):
+    def __init__(self, message: str, *, file: str | None = None, line: int | None = None,
+                 item: str | None = None, key: str | None = None,
+                 column: str | None = None) -> None:
         super().__init__(message)
         self.message = message
         self.file = file
@@ -39,7 +43,7 @@ class InputError(MachinecheckError):
         self.key = key
         self.column = column
 
-    def located(self, **where) -> InputError:
+    def located(self, **where: str | int | None) -> InputError:
         """Return a copy with missing location fields filled from ``where``."""
         fields = {n: getattr(self, n) for n in ("file", "line", "item", "key", "column")}
         for name, value in where.items():
@@ -69,6 +73,6 @@ class InputError(MachinecheckError):
 class InputErrors(MachinecheckError):
     """Every problem found in one input, reported together."""
 
-    def __init__(self, errors):
+    def __init__(self, errors: Iterable[InputError]) -> None:
         self.errors = list(errors)
         super().__init__("\n".join(str(e) for e in self.errors))

@@ -43,7 +43,7 @@ def test_230v_motor_on_208v_is_warned():
 def test_voltage_far_from_rating_is_incompatible():
     # IEC 60034-1 7.3: outside zone B (-10 %).
     m = machine({"frequency": "50 Hz", "voltage": "400 V", "power": "11 kW", "speed": "1460 rpm"})
-    a = assess(m, site(frequency="50 Hz", voltage="230 V", standard="IEC"))
+    a = assess(m, site(frequency="50 Hz", voltage="230 V", wires=3, standard="IEC"))
     assert a.verdict == "incompatible"
     assert "outside-tolerance" in codes(a, "problem")
 
@@ -116,7 +116,7 @@ def test_dual_voltage_picks_connection():
     m = machine({"frequency": "60 Hz", "voltage": ["230 V", "460 V"],
                  "connection": ["low", "high"], "current": ["24 A", "12 A"], "power": "10 hp",
                  "speed": "1760 rpm"})
-    a = assess(m, site(frequency="60 Hz", voltage="230 V", standard="NEMA"))
+    a = assess(m, site(frequency="60 Hz", voltage="230 V", wires=3, standard="NEMA"))
     assert a.connection.name == "low"
     assert a.full_load_current_a == pytest.approx(24)
 

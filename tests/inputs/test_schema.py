@@ -28,7 +28,7 @@ def test_demo_catalog_and_sites_validate():
 
 @pytest.mark.parametrize("breakage", [
     lambda d: d["machine"][0].update(volts="400 V"),                  # unknown key
-    lambda d: d["machine"][0].update(phases=2),                        # not 1 or 3
+    lambda d: d["machine"][0].update(phases=4),                        # not 1, 2 or 3
     lambda d: d["machine"][0]["rating"][0].pop("frequency"),           # required key
     lambda d: d["machine"][0]["rating"][0].update(power="lots"),      # not a quantity
     lambda d: d["machine"][0].update(kind="steam-engine"),             # unknown kind
