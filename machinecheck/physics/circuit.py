@@ -13,6 +13,7 @@ from dataclasses import dataclass
 from functools import lru_cache
 
 from ..errors import DomainError
+from .constants import synchronous_speed_rpm
 
 #: Share of X1 in the locked-rotor reactance X1 + X2 by NEMA design letter (IEEE Std 112,
 #: empirical distribution; from memory). IEC design N is taken as NEMA B and H as C.
@@ -153,7 +154,7 @@ def estimate(power_w: float, voltage_v: float, frequency_hz: float, poles: int,
     """
     if not (power_w > 0 and voltage_v > 0 and frequency_hz > 0 and speed_rpm > 0):
         raise DomainError("needs rated output, voltage, frequency and speed")
-    n_s = 120.0 * frequency_hz / poles
+    n_s = synchronous_speed_rpm(frequency_hz, poles)
     slip = (n_s - speed_rpm) / n_s
     if not 0.0 < slip < 0.5:
         raise DomainError(f"rated slip {100 * slip:.1f} % is not that of a loaded induction motor")
@@ -340,7 +341,7 @@ def operating_point(c: Circuit, voltage_v: float, frequency_hz: float, slip: flo
     p_in = 3.0 * v_ph * i1 * pf
     p_ag = p_in - 3.0 * i1 * i1 * c.r1_ohm
     p_conv = (1.0 - slip) * p_ag
-    n_s = 120.0 * frequency_hz / c.poles
+    n_s = synchronous_speed_rpm(frequency_hz, c.poles)
     speed = (1.0 - slip) * n_s
     if rotational_loss_w is None:
         rotational_loss_w = rotational_loss(c, speed)
@@ -381,7 +382,7 @@ def solve(c: Circuit, voltage_v: float, frequency_hz: float, load_torque) -> Ope
     """
     v_th, r_th, x_total, w_sync = _torque_terms(c, voltage_v, frequency_hz)
     x2sq = x_total * x_total
-    n_s = 120.0 * frequency_hz / c.poles
+    n_s = synchronous_speed_rpm(frequency_hz, c.poles)
     k = 3.0 * v_th * v_th / w_sync
     r2 = c.r2_ohm
     p_rot, n_rot = c.rotational_loss_w, c.rated_speed_rpm

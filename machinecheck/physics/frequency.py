@@ -25,6 +25,29 @@ def flux_ratio(voltage_v: float, rated_voltage_v: float, frequency_hz: float,
     return (voltage_v / rated_voltage_v) / (frequency_hz / rated_frequency_hz)
 
 
+def rated_flux_voltage(rated_voltage_v: float, frequency_ratio: float) -> float:
+    """Voltage that keeps rated V/f at another frequency, V_rated x f / f_rated [V].
+
+    References
+    ----------
+    .. [1] NEMA MG 1 12.44.2; flux proportional to V/f (Chapman, sec. 6.9).
+    """
+    return rated_voltage_v * frequency_ratio
+
+
+def uprated_output(rated_power_w: float, frequency_ratio: float, flux_ratio_: float) -> float:
+    """Output a machine could give at a higher frequency with rated flux, P x f / f_rated
+    (limited by the flux actually reached) [W]; to be confirmed by the manufacturer.
+
+    P_up = P_rated x min(f / f_rated x min(1, k), f / f_rated)
+
+    References
+    ----------
+    .. [1] Torque at rated flux is unchanged, so power rises with speed: Chapman, sec. 6.9.
+    """
+    return rated_power_w * min(frequency_ratio * min(1.0, flux_ratio_), frequency_ratio)
+
+
 def torque_capability(flux_ratio_: float) -> float:
     """Breakdown and locked-rotor torque relative to rated-supply values, ~ k**2 [-].
 

@@ -51,6 +51,17 @@ def torque_curve(load_type: str, torque_nm: float, reference_speed_rpm: float):
     return lambda n: power / n if n > 0 else math.inf
 
 
+def constant_power_reference(power_w: float) -> tuple[float, float]:
+    """A constant-power load of ``power_w`` as (torque [N m], at speed [rpm]) for
+    :func:`torque_curve`: the torque it would ask at 1 rpm, T = P x 30 / pi.
+
+    References
+    ----------
+    .. [1] Definition of mechanical power, P = T * omega, omega = 2 pi n / 60.
+    """
+    return power_w * 30.0 / math.pi, 1.0
+
+
 def power_ratio(load_type: str, speed_ratio: float) -> float:
     """Load power relative to its value at the reference speed [-] (torque ratio x speed ratio).
 

@@ -6,6 +6,7 @@ import bisect
 import functools
 
 from ..errors import DomainError
+from .constants import CONDUCTOR_FACTOR
 
 # NFPA 70 (2008 and later) Table 430.250, three-phase induction motors, amperes.
 _COLUMNS_3PH: tuple[float, ...] = (115.0, 200.0, 208.0, 230.0, 460.0, 575.0, 2300.0)
@@ -46,8 +47,6 @@ _VOLTAGE_BANDS = ((110.0, 120.0, 115.0), (199.0, 201.0, 200.0), (207.0, 209.0, 2
                   (220.0, 240.0, 230.0), (440.0, 480.0, 460.0), (550.0, 600.0, 575.0),
                   (2300.0, 2400.0, 2300.0))
 
-#: Conductors for one continuous-duty motor: 125 % of the table current (NEC 430.22).
-CONDUCTOR_FACTOR = 1.25
 #: Synchronous motor multipliers for leading power factor (Table 430.250 footnote).
 SYNC_PF_MULTIPLIER = {1.0: 1.0, 0.9: 1.1, 0.8: 1.25}
 #: Conversion slack: kW ratings that are the metric twin of a hp size (7.5 kW = 10.06 hp).
@@ -134,3 +133,18 @@ def table_current(power_hp: float, motor_voltage_v: float, phases: int = 3,
         nearest = min(SYNC_PF_MULTIPLIER, key=lambda pf: abs(pf - power_factor))
         value = value * SYNC_PF_MULTIPLIER[nearest]
     return float(value), hp
+
+
+def conductor_current(table_current_a: float) -> float:
+    """Current the branch-circuit conductors of one continuous-duty motor carry, 125 % [A].
+
+    Parameters
+    ----------
+    table_current_a : full-load current from Table 430.250/430.248 [A]
+
+    References
+    ----------
+    .. [1] NFPA 70 (NEC) 430.22: conductors at least 125 % of the motor's full-load current
+       rating as determined by 430.6(A)(1).
+    """
+    return CONDUCTOR_FACTOR * table_current_a

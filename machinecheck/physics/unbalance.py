@@ -6,6 +6,7 @@ import functools
 import math
 
 from ..errors import DomainError
+from .constants import UNBALANCE_LIMIT
 
 
 def voltage_unbalance(line_voltages_v) -> float:
@@ -38,9 +39,6 @@ def voltage_unbalance(line_voltages_v) -> float:
 #: (unbalance, derating factor) read from the NEMA MG 1 curve (Figure 14-1).
 UNBALANCE_DERATING = ((0.0, 1.0), (0.01, 1.0), (0.015, 0.97), (0.02, 0.95), (0.025, 0.93),
                       (0.03, 0.89), (0.035, 0.85), (0.04, 0.82), (0.045, 0.78), (0.05, 0.76))
-
-#: Above this unbalance NEMA advises against operation.
-UNBALANCE_LIMIT = 0.05
 
 
 @functools.lru_cache(maxsize=256)  # one figure a site, asked once a pair

@@ -3,7 +3,7 @@ import math
 import pytest
 from helpers import codes, machine, site
 
-from machinecheck.engine.check import assess
+from machinecheck.engine.pipeline import assess
 
 NEMA_50HP = {"frequency": "60 Hz", "voltage": "460 V", "power": "50 hp", "speed": "1775 rpm",
              "efficiency": 0.93, "power_factor": 0.85}
@@ -56,7 +56,7 @@ def test_iec_zone_verdicts(volts, zone, verdict):
     # IEC 60034-1 7.3 zones A/B at rated frequency.
     m = machine({"frequency": "50 Hz", "voltage": "400 V", "power": "11 kW", "speed": "1460 rpm"})
     a = assess(m, site(frequency="50 Hz", voltage=f"{volts} V", standard="IEC"))
-    assert a.tolerance["zone"] == zone
+    assert a.supply.tolerance.zone == zone
     assert a.verdict == verdict
 
 
@@ -73,7 +73,7 @@ def test_50hz_motor_on_60hz_same_voltage_underflux_warned():
     m = machine({"frequency": "50 Hz", "voltage": "400 V", "power": "11 kW", "speed": "1460 rpm"})
     a = assess(m, site(frequency="60 Hz", voltage="400 V", standard="IEC"))
     assert a.flux_ratio == pytest.approx(5 / 6)
-    assert a.torque_capability == pytest.approx(0.694, abs=1e-3)
+    assert a.running.torque_capability == pytest.approx(0.694, abs=1e-3)
     assert "underflux" in codes(a, "warning")
     assert a.available_power_w == pytest.approx(11000)
     assert "speed-increase" in codes(a)
@@ -95,7 +95,7 @@ def test_pump_moved_60_to_50hz_loses_head():
     # practice notes Q14: flow x0.833, head x0.694, power x0.579 (affinity laws).
     m = machine(NEMA_50HP, load={"type": "centrifugal", "power": "40 hp"})
     a = assess(m, site(frequency="50 Hz", voltage="380 V", standard="IEC"))
-    assert a.head_ratio == pytest.approx(0.70, abs=0.01)
+    assert a.running.load.head_ratio == pytest.approx(0.70, abs=0.01)
     assert "duty-shortfall" in codes(a, "warning")
 
 
@@ -136,7 +136,7 @@ def test_delta_star_connection(plate, power, speed_, supply, frequency, standard
                  "power": power, "speed": speed_})
     a = assess(m, site(frequency=frequency, voltage=supply, standard=standard))
     assert a.connection.name == connection
-    assert a.star_delta_possible is star_delta
+    assert a.running.star_delta_possible is star_delta
     assert a.flux_ratio == pytest.approx(1.0)
 
 
@@ -188,8 +188,8 @@ def test_unbalance_from_line_voltages():
     # NEMA MG 1 Part 14: 460/467/450 V -> 1.96 %, derate about 0.95.
     a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="460 V", standard="NEMA",
                                         line_voltages=["460 V", "467 V", "450 V"]))
-    assert a.unbalance == pytest.approx(0.0196, abs=1e-4)
-    assert a.factors["unbalance"] == pytest.approx(0.95, abs=0.01)
+    assert a.running.derates.unbalance == pytest.approx(0.0196, abs=1e-4)
+    assert a.running.derates.factor("unbalance") == pytest.approx(0.95, abs=0.01)
     assert "voltage-unbalance" in codes(a, "warning")
 
 
@@ -204,7 +204,7 @@ def test_altitude_and_ambient_derating_multiply():
     a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="460 V", standard="NEMA",
                                         altitude="2000 m", ambient="50 degC",
                                         unbalance="2 %"))
-    assert a.factors["site"] == pytest.approx(0.86)
+    assert a.running.derates.factor("site") == pytest.approx(0.86)
     assert a.combined_factor == pytest.approx(0.86 * 0.95, abs=0.005)
 
 
@@ -234,8 +234,8 @@ def test_service_factor_reset_off_rated_supply():
     m = machine(NEMA_50HP, service_factor=1.15)
     on = assess(m, site(frequency="60 Hz", voltage="460 V", standard="NEMA"))
     off = assess(m, site(frequency="50 Hz", voltage="380 V", standard="IEC"))
-    assert on.service_factor_at_site == 1.15
-    assert off.service_factor_at_site == 1.0
+    assert on.running.service_factor_at_site == 1.15
+    assert off.running.service_factor_at_site == 1.0
 
 
 def test_efficiency_class_required_by_site():
@@ -250,7 +250,7 @@ def test_efficiency_class_required_by_site():
 
 def test_demo_shows_all_three_verdicts():
     from machinecheck.cli.main import _demo_path
-    from machinecheck.engine.check import assess_all
+    from machinecheck.engine.pipeline import assess_all
     from machinecheck.inputs.catalog import load_catalog, load_sites
 
     results = assess_all(load_catalog(_demo_path("fleet.toml")).machines,
@@ -265,10 +265,10 @@ def test_rated_supply_gives_back_the_plate_through_the_circuit():
     a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="460 V", standard="NEMA"))
     assert a.operating_point_basis == "equivalent circuit"
     assert a.expected_speed_rpm == pytest.approx(1775, abs=0.1)
-    assert a.rule_speed_rpm == pytest.approx(1775, abs=0.1)
+    assert a.running.operating.rule_speed_rpm == pytest.approx(1775, abs=0.1)
     assert a.operating_current_a == pytest.approx(59.2, abs=0.1)
-    assert a.operating_power_factor == pytest.approx(0.85, abs=1e-3)
-    assert a.operating_efficiency == pytest.approx(0.93, abs=1e-3)
+    assert a.running.operating.power_factor == pytest.approx(0.85, abs=1e-3)
+    assert a.running.operating.efficiency == pytest.approx(0.93, abs=1e-3)
     assert a.breakdown_margin == pytest.approx(2.5, rel=1e-3)  # the design B figure fitted
 
 
@@ -284,11 +284,12 @@ def test_deep_undervoltage_stalls_at_full_load():
     # 460 V motor on 208 V: T_max falls as V^2 to 0.20 x its rated-voltage value, 2.5 x 0.20 =
     # 0.51 x rated torque, so the motor cannot carry its rating (analytic from the circuit).
     a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="208 V", standard="NEMA"))
-    assert a.stalled
+    assert a.running.operating.stalled
     assert "motor-stall" in codes(a, "problem")
     rated_torque = 50 * 745.6999 / (1775 * math.pi / 30)
-    assert a.breakdown_torque_nm / rated_torque == pytest.approx(2.5 * (208 / 460) ** 2, rel=1e-3)
-    assert a.stall_torque_nm > a.breakdown_torque_nm
+    op = a.running.operating
+    assert op.breakdown_torque_nm / rated_torque == pytest.approx(2.5 * (208 / 460) ** 2, rel=1e-3)
+    assert op.stall_torque_nm > op.breakdown_torque_nm
 
 
 def test_low_breakdown_margin_is_warned():
