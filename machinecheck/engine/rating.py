@@ -24,11 +24,12 @@ def choose(machine: Machine, site: Site) -> tuple[RatingChoice, Offer]:
     assert poles is not None  # the catalog gives every machine its poles
     candidates = [r for r in machine.ratings
                   if in_frequency_band(site.frequency_hz / r.frequency_hz - 1.0, site.standard)]
+    offered = offers(machine, site)
     best: tuple[float, RatingChoice, Offer] | None = None
     for rating in candidates or machine.ratings:
         f_ratio = site.frequency_hz / rating.frequency_hz
         for connection in rating.connections:
-            for offer in offers(machine, site):
+            for offer in offered:
                 choice = _choice(rating, connection, offer.voltage_v, site, poles)
                 score = (abs(math.log(choice.flux_ratio))
                          + _FREQUENCY_WEIGHT * abs(math.log(f_ratio)))

@@ -336,10 +336,13 @@ def _efficiency(machine: Machine, rating: Rating, poles: int) -> tuple[str | Non
 
 def _star_delta(machine: Machine, choice: RatingChoice) -> bool | None:
     """Whether star-delta starting fits: None when the plate has no star and delta pair."""
-    names = {(c.name or "").strip().lower(): c for c in choice.rating.connections}
+    connections = choice.rating.connections
+    if len(connections) < 2 or machine.phases != 3:
+        return None  # a star and a delta connection are two connections
+    names = {(c.name or "").strip().lower(): c for c in connections}
     delta = next((c for n, c in names.items() if n in DELTA_NAMES), None)
     star = next((c for n, c in names.items() if n in STAR_NAMES), None)
-    if delta is None or star is None or machine.phases != 3:
+    if delta is None or star is None:
         return None
     return (choice.connection is delta and abs(choice.flux_ratio - 1.0) <= STAR_DELTA_FLUX_BAND
             and abs(star.voltage_v / delta.voltage_v - star_delta_ratio()) < STAR_DELTA_RATIO_SLACK)

@@ -19,8 +19,9 @@ def flux_ratio(voltage_v: float, rated_voltage_v: float, frequency_hz: float,
     .. [1] NEMA MG 1 12.44.2; flux proportional to V/f, e.g. Chapman, *Electric Machinery
        Fundamentals*, sec. 6.9 (variable-frequency speed control).
     """
-    values = (voltage_v, rated_voltage_v, frequency_hz, rated_frequency_hz)
-    if not all(v > 0 and math.isfinite(v) for v in values):
+    if not (0 < voltage_v < math.inf and 0 < rated_voltage_v < math.inf
+            and 0 < frequency_hz < math.inf and 0 < rated_frequency_hz < math.inf):
+        values = (voltage_v, rated_voltage_v, frequency_hz, rated_frequency_hz)
         raise DomainError(f"voltages and frequencies must be positive, got {values!r}")
     return (voltage_v / rated_voltage_v) / (frequency_hz / rated_frequency_hz)
 
