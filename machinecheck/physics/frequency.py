@@ -129,4 +129,4 @@ def cooling_derating(speed_ratio: float, cooling_code: str) -> float:
         raise DomainError(f"speed ratio must be positive, got {speed_ratio!r}")
     if speed_ratio >= 1.0 or cooling_code.upper() not in SHAFT_FAN_ENCLOSED:
         return 1.0
-    return speed_ratio ** SHAFT_FAN_EXPONENT
+    return float(speed_ratio ** SHAFT_FAN_EXPONENT)

@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import math
+from collections.abc import Callable
 
 from ..errors import DomainError
 
@@ -34,7 +35,8 @@ def torque_ratio(load_type: str, speed_ratio: float) -> float:
     return float(speed_ratio ** exponent)
 
 
-def torque_curve(load_type: str, torque_nm: float, reference_speed_rpm: float):
+def torque_curve(load_type: str, torque_nm: float,
+                 reference_speed_rpm: float) -> Callable[[float], float]:
     """The load's torque as a function of shaft speed: n [rpm] -> T [N m].
 
     ``torque_nm`` is the torque at ``reference_speed_rpm``; the curve follows
@@ -99,4 +101,4 @@ def impeller_trim(head_ratio_wanted: float, speed_ratio: float) -> float:
     """
     if not (speed_ratio > 0 and head_ratio_wanted > 0):
         raise DomainError("ratios must be positive")
-    return head_ratio_wanted ** 0.5 / speed_ratio
+    return float(head_ratio_wanted ** 0.5) / speed_ratio

@@ -4,12 +4,13 @@ from __future__ import annotations
 
 import functools
 import math
+from collections.abc import Iterable
 
 from ..errors import DomainError
 from .constants import UNBALANCE_LIMIT
 
 
-def voltage_unbalance(line_voltages_v) -> float:
+def voltage_unbalance(line_voltages_v: Iterable[float]) -> float:
     """Percent unbalance per NEMA: largest deviation from the average over the average [-].
 
     Not (Vmax - Vmin) / Vavg, which about doubles the figure.
