@@ -25,9 +25,10 @@ def assess(machine: Machine, site: Site, *, explain: bool = False) -> Assessment
     choice, offer = rating.choose(machine, site)
     seen = supply.see(machine, site, choice, offer)
     at_site = running.run(machine, choice, seen)
-    findings: tuple[Finding, ...] = ()
+    found: list[Finding] = []
     for rule in RULES:
-        findings += rule(machine, choice, seen, at_site)
+        found.extend(rule(machine, choice, seen, at_site))
+    findings = tuple(found)
     return Assessment(
         machine=machine, site=site, choice=choice, supply=seen, running=at_site,
         findings=findings, verdict=verdict_of(findings),

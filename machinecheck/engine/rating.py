@@ -25,26 +25,26 @@ def choose(machine: Machine, site: Site) -> tuple[RatingChoice, Offer]:
     candidates = [r for r in machine.ratings
                   if in_frequency_band(site.frequency_hz / r.frequency_hz - 1.0, site.standard)]
     offered = offers(machine, site)
-    best: tuple[float, RatingChoice, Offer] | None = None
+    best: tuple[float, Rating, Connection, Offer, float, float] | None = None
     for rating in candidates or machine.ratings:
         f_ratio = site.frequency_hz / rating.frequency_hz
         for connection in rating.connections:
             for offer in offered:
-                choice = _choice(rating, connection, offer.voltage_v, site, poles)
-                score = (abs(math.log(choice.flux_ratio))
-                         + _FREQUENCY_WEIGHT * abs(math.log(f_ratio)))
+                reference, k = _flux(rating, connection, offer.voltage_v, site)
+                score = abs(math.log(k)) + _FREQUENCY_WEIGHT * abs(math.log(f_ratio))
                 if best is None or score < best[0] - 1e-12:
-                    best = (score, choice, offer)
+                    best = (score, rating, connection, offer, reference, k)
     assert best is not None  # every rating has a connection and every site a voltage
-    return best[1], best[2]
+    _, rating, connection, offer, reference, k = best
+    return RatingChoice(rating=rating, connection=connection, rated_voltage_v=reference,
+                        flux_ratio=k, poles=poles), offer
 
 
-def _choice(rating: Rating, connection: Connection, terminal_voltage_v: float, site: Site,
-            poles: int) -> RatingChoice:
-    """The connection on ``terminal_voltage_v``: its rated voltage (the end of a stamped range
-    nearest the voltage that keeps rated V/f) and the flux ratio."""
+def _flux(rating: Rating, connection: Connection, terminal_voltage_v: float,
+          site: Site) -> tuple[float, float]:
+    """(rated voltage, flux ratio) of a connection on ``terminal_voltage_v``: the rated
+    voltage is the end of a stamped range nearest the voltage that keeps rated V/f."""
     f_ratio = site.frequency_hz / rating.frequency_hz
     reference = connection.reference_voltage(terminal_voltage_v / f_ratio)
-    k = flux_ratio(terminal_voltage_v, reference, site.frequency_hz, rating.frequency_hz)
-    return RatingChoice(rating=rating, connection=connection, rated_voltage_v=reference,
-                        flux_ratio=k, poles=poles)
+    return reference, flux_ratio(terminal_voltage_v, reference, site.frequency_hz,
+                                 rating.frequency_hz)
