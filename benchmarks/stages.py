@@ -3,7 +3,7 @@
     python benchmarks/stages.py            # 3,000 generated machines x 3 sites, best of 7
     python benchmarks/stages.py 1000 3     # size and repeats
 
-Each stage is timed on fresh caches (circuit estimates, deratings, table currents), as a
+Each stage is timed on fresh caches (circuit estimates, site deratings, efficiency classes), as a
 worker meets them; the best of the repeats is kept, the machines being
 noisy. See docs/performance.md.
 """
@@ -22,14 +22,13 @@ from machinecheck import fleet as runner
 from machinecheck.engine.pipeline import assess_all
 from machinecheck.inputs import units
 from machinecheck.inputs.catalog import catalog_from_data, sites_from_data, tomllib
-from machinecheck.physics import circuit, efficiency, environment, nec, unbalance
+from machinecheck.physics import circuit, efficiency, environment
 from machinecheck.report import renderer
 
 
 def _fresh_caches() -> None:
     for cached in (circuit.estimate, environment.site_derating,
-                   efficiency.efficiency_class_of, efficiency.minimum_efficiency,
-                   nec.table_current, unbalance.unbalance_derating):
+                   efficiency.efficiency_class_of, efficiency.minimum_efficiency):
         cached.cache_clear()
 
 

@@ -3,7 +3,6 @@
 from __future__ import annotations
 
 import bisect
-import functools
 
 from ..errors import DomainError
 from .constants import CONDUCTOR_FACTOR
@@ -87,7 +86,6 @@ def table_column(motor_voltage_v: float) -> float | None:
     return None
 
 
-@functools.lru_cache(maxsize=4096)  # a fleet has few distinct sizes and winding voltages
 def table_current(power_hp: float, motor_voltage_v: float, phases: int = 3,
                   synchronous: bool = False, power_factor: float = 1.0) -> tuple[float, int | float] | None:
     """NEC table full-load current for a motor, and the standard hp it was read at.

@@ -2,7 +2,6 @@
 
 from __future__ import annotations
 
-import functools
 import math
 from collections.abc import Iterable
 
@@ -42,7 +41,6 @@ UNBALANCE_DERATING = ((0.0, 1.0), (0.01, 1.0), (0.015, 0.97), (0.02, 0.95), (0.0
                       (0.03, 0.89), (0.035, 0.85), (0.04, 0.82), (0.045, 0.78), (0.05, 0.76))
 
 
-@functools.lru_cache(maxsize=256)  # one figure a site, asked once a pair
 def unbalance_derating(unbalance: float) -> float:
     """Output factor for a three-phase motor on an unbalanced supply [-].
 
