@@ -8,8 +8,8 @@ DELTA_STAR = {"frequency": "50 Hz", "voltage": ["400 V", "690 V"], "connection":
 
 
 def test_delta_at_the_supply_voltage_allows_star_delta_starting():
-    # Star-delta starting runs the winding in delta at the supply voltage
-    # [IEC 60034-1:2022 §3] (common practice reading, no published source for the rule).
+    # Star-delta starting runs the winding in delta at the supply voltage (common practice, no
+    # published source).
     found = by_code(connection.check(*records(DELTA_STAR, dict(frequency="50 Hz", voltage="400 V",
                                                               standard="IEC"))))
     assert found["connection"].message.startswith("connect delta 400 V, 100.0 A rated (not star 690 V)")

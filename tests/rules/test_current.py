@@ -19,7 +19,7 @@ def test_code_current_and_conductors_at_125_percent():
 
 def test_plate_current_far_from_the_formula_is_warned():
     # P / (sqrt(3) V eta PF) = 37.3 kW / (sqrt(3) x 460 x 0.93 x 0.85) = 59.2 A; 80 A is 1.35 x
-    # [Chapman 2012 §7.4] (input power of an induction motor).
+    # [Chapman 2005 §7.4] (input power of an induction motor).
     found = by_code(current.check(*records({**NEMA_50HP, "current": "80 A"}, NEMA_SITE)))
     assert found["current-mismatch"].severity == "warning"
     assert "80.0 A is 1.35 x" in found["current-mismatch"].message

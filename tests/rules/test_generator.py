@@ -12,8 +12,8 @@ def _found(supply, **machine_fields):
 
 
 def test_60hz_set_on_50hz_needs_1500_rpm_and_a_reset():
-    # n = 120 f / p = 120 x 50 / 4 = 1500 rpm [IEC 60034-1:2022 §3]; at 400 V the rated current
-    # gives 500 x 400 / 480 = 416.7 kVA, I = 601 A [Chapman 2012 §4.9] (S = sqrt(3) V I).
+    # n = 120 f / p = 120 x 50 / 4 = 1500 rpm [Chapman 2005 ch. 3]; at 400 V the rated current
+    # gives 500 x 400 / 480 = 416.7 kVA, I = 601 A [Chapman 2005 ch. 4] (S = sqrt(3) V I).
     found = _found(dict(frequency="50 Hz", voltage="400 V", standard="IEC"))
     assert found["generator-speed"].message.endswith("4 poles: 1500 rpm")
     assert found["generator-conversion"].severity == "warning"

@@ -32,8 +32,9 @@ def test_pump_moved_50_to_60hz_overloads_the_motor():
 
 
 def test_light_load_is_an_info():
-    # Half the rated torque at rated supply: slip halves (slip ~ torque near rated,
-    # [Chapman 2012 §7.7]), 1500 - 40 / 2 = 1480 rpm, so 5.5 kW x 1480 / 1460 = 5.58 kW, 51 %.
+    # Half the rated torque at rated supply: slip halves (slip ~ torque near rated
+    # [Chapman 2005 ch. 7], from memory): 1500 - 40 / 2 = 1480 rpm, so 5.5 kW x 1480 / 1460 =
+    # 5.58 kW, 51 %.
     found = by_code(load.check(*records(IEC_11KW, dict(frequency="50 Hz", voltage="400 V",
                                                       standard="IEC"),
                                         load={"type": "constant-torque", "power": "5.5 kW"})))

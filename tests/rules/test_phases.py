@@ -18,7 +18,7 @@ def test_three_phase_machine_on_single_phase_supply_is_a_problem():
 
 def test_three_phase_machine_on_two_phase_supply_names_the_scott_t():
     # Two-phase (quadrature) to three-phase needs a Scott-T transformer
-    # [Chapman 2012 App. A] (from memory).
+    # [Chapman 2005 App. A] (from memory).
     found = by_code(phases.check(*records(NEMA_50HP, dict(
         frequency="60 Hz", voltage="240 V", phases=2, system="quadrature", standard="NEMA"))))
     assert found["phase-mismatch"].severity == "problem"

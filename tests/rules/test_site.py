@@ -14,16 +14,16 @@ def _found(**fields):
 
 
 def test_unbalance_from_line_voltages_is_derated():
-    # 460/467/450 V: average 459, largest deviation 9 V -> 1.96 % [NEMA MG 1-2021 §14.36];
-    # derate about 0.95 at 2 % [NEMA MG 1-2021 Fig. 14-1].
+    # 460/467/450 V: average 459, largest deviation 9 V -> 1.96 % [NEMA MG 1-2016 §14.36];
+    # derate about 0.95 at 2 % [NEMA MG 1-2016 Fig. 14-1].
     warning = _found(line_voltages=["460 V", "467 V", "450 V"])["voltage-unbalance"]
     assert warning.severity == "warning"
     assert warning.message.startswith("voltage unbalance 1.96 %: derate to 0.95")
 
 
 @pytest.mark.parametrize(("unbalance", "severity"), [
-    ("0.5 %", "info"),     # 1 % or less: no derating [NEMA MG 1-2021 Fig. 14-1]
-    ("6 %", "problem"),    # above 5 %: operation not recommended [NEMA MG 1-2021 §14.36]
+    ("0.5 %", "info"),     # 1 % or less: no derating [NEMA MG 1-2016 Fig. 14-1]
+    ("6 %", "problem"),    # above 5 %: operation not recommended [NEMA MG 1-2016 §14.36]
 ])
 def test_unbalance_bands(unbalance, severity):
     assert _found(unbalance=unbalance)["voltage-unbalance"].severity == severity

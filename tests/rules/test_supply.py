@@ -33,7 +33,7 @@ def test_iec_zones(volts, code, severity):
 
 def test_460v_motor_on_480v_is_a_normal_pairing_within_nema_limits():
     # ANSI C84.1: 480 V systems feed 460 V utilization equipment [ANSI C84.1-2020 Table 1];
-    # +4.3 % is within +-10 % [NEMA MG 1-2021 §12.44].
+    # +4.3 % is within +-10 % [NEMA MG 1-2016 §12.44].
     found = by_code(supply.check(*records(NEMA_50HP, dict(frequency="60 Hz", voltage="480 V",
                                                           standard="NEMA"))))
     assert found["normal-pairing"].severity == "info"
@@ -42,8 +42,8 @@ def test_460v_motor_on_480v_is_a_normal_pairing_within_nema_limits():
 
 
 def test_230v_motor_on_208v_is_near_the_nema_limit():
-    # -9.6 % is inside +-10 % but near it [NEMA MG 1-2021 §12.44]; torque ~ V^2: 0.904^2 = 0.82
-    # [NEMA MG 1-2021 §12.44.2].
+    # -9.6 % is inside +-10 % but near it [NEMA MG 1-2016 §12.44]; torque ~ V^2: 0.904^2 = 0.82
+    # [NEMA MG 1-2016 §12.44.2].
     found = by_code(supply.check(*records(NEMA_5HP, dict(frequency="60 Hz", voltage="208 V",
                                                          standard="NEMA"))))
     warning = found["near-tolerance-limit"]
@@ -53,7 +53,7 @@ def test_230v_motor_on_208v_is_near_the_nema_limit():
 
 
 def test_nema_outside_ten_percent_is_a_problem():
-    # +13 % is outside +-10 % [NEMA MG 1-2021 §12.44].
+    # +13 % is outside +-10 % [NEMA MG 1-2016 §12.44].
     found = by_code(supply.check(*records(NEMA_50HP, dict(frequency="60 Hz", voltage="520 V",
                                                           standard="NEMA"))))
     assert found["outside-tolerance"].severity == "problem"
