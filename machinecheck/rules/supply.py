@@ -5,6 +5,7 @@ from __future__ import annotations
 from ..engine.assessment import Finding, RatingChoice, Running, Supply, Tolerance
 from ..model import Machine
 from ..physics.constants import NEAR_LIMIT_COMBINED, NEAR_LIMIT_UNDERVOLTAGE
+from ..physics.current import current_at_site
 from ..physics.frequency import torque_capability
 from ..physics.tolerance import is_normal_pairing
 
@@ -52,8 +53,8 @@ def _nema(choice: RatingChoice, supply: Supply, t: Tolerance) -> list[Finding]:
                         f"{_where(choice, supply, t)}")]
     worst = t.worst_voltage_deviation
     if combined > NEAR_LIMIT_COMBINED or worst < NEAR_LIMIT_UNDERVOLTAGE:
-        torque = torque_capability(1.0 + worst)
-        current = 1.0 / (1.0 + worst)
+        torque = torque_capability(1.0 + worst)  # k = V / V_rated at rated frequency
+        current = current_at_site(1.0, 1.0, 1.0 + worst)  # per unit of rated current
         return [Finding(
             "near-tolerance-limit", "warning",
             f"within NEMA MG 1 12.44 limits but near them ({100 * combined:.1f} % of 10 %): "
