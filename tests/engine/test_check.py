@@ -116,7 +116,7 @@ def test_dual_frequency_plate_uses_its_own_set():
 
 
 def test_dual_voltage_picks_connection():
-    # 230/460 V plate: low voltage = windings in parallel, high = series [NEMA MG 1-2016 §2.60]
+    # 230/460 V plate: low voltage = windings in parallel, high = series [NEMA MG 1-2016 Part 2]
     # (from memory).
     m = machine({"frequency": "60 Hz", "voltage": ["230 V", "460 V"],
                  "connection": ["low", "high"], "current": ["24 A", "12 A"], "power": "10 hp",
@@ -248,7 +248,7 @@ def test_service_factor_reset_off_rated_supply():
 
 
 def test_efficiency_class_required_by_site():
-    # 4 kW 4-pole 50 Hz at 85.9 % is below IE2 (86.6 %) [IEC 60034-30-1:2014 Table 2].
+    # 4 kW 4-pole 50 Hz at 85.9 % is below IE2 (86.6 %) [IEC 60034-30-1:2014 §6, 50 Hz table].
     m = machine({"frequency": "50 Hz", "voltage": "400 V", "power": "4 kW", "speed": "1440 rpm",
                  "efficiency": "85.9 %"}, efficiency_class="IE2")
     a = assess(m, site(frequency="50 Hz", voltage="400 V", standard="IEC",

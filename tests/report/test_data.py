@@ -36,7 +36,7 @@ def test_figures_are_the_records_in_output_units_and_rounded():
 
 def test_conductor_current_is_the_engines_125_percent():
     # NFPA 70 430.22: conductors at 125 % of the Table 430.250 current; 50 hp at 460 V is 65 A
-    # in Table 430.250 [NFPA 70:2023 Table 430.250] (from memory), so 81.25 A.
+    # in [NFPA 70:2008 Table 430.250], so 81.25 A [NFPA 70:2008 §430.22].
     data = result_dict(_pair())
     assert data["code_current_a"] == pytest.approx(65.0)
     assert data["code_current_hp"] == 50

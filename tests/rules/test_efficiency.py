@@ -7,7 +7,7 @@ IEC_4KW = {"frequency": "50 Hz", "voltage": "400 V", "power": "4 kW", "speed": "
 
 
 def test_plate_below_its_marked_class_and_below_the_site_requirement():
-    # 4 kW 4-pole 50 Hz: IE2 minimum 86.6 % [IEC 60034-30-1:2014 Table 2]; 85.9 % is below it,
+    # 4 kW 4-pole 50 Hz: IE2 minimum 86.6 % [IEC 60034-30-1:2014 §6, 50 Hz table]; 85.9 % is below it,
     # and an IE3 site is not met.
     found = by_code(efficiency.check(*records(
         {**IEC_4KW, "efficiency": "85.9 %"},
@@ -26,7 +26,7 @@ def test_unknown_class_on_a_site_that_requires_one():
 
 
 def test_class_that_meets_the_site_finds_nothing():
-    # 4 kW 4-pole 50 Hz: IE3 minimum 88.6 % [IEC 60034-30-1:2014 Table 2]; 89.0 % meets it.
+    # 4 kW 4-pole 50 Hz: IE3 minimum 88.6 % [IEC 60034-30-1:2014 §6, 50 Hz table]; 89.0 % meets it.
     assert efficiency.check(*records(
         {**IEC_4KW, "efficiency": "89.0 %"},
         dict(frequency="50 Hz", voltage="400 V", standard="IEC", min_efficiency_class="IE3"),

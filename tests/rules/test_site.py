@@ -37,7 +37,7 @@ def test_altitude_and_ambient_derate():
 
 
 def test_beyond_the_table_is_a_problem():
-    # IEC 60034-1 gives no correction above 4000 m: by agreement [IEC 60034-1:2022 §6.4]
+    # IEC 60034-1 gives no correction above 4000 m: by agreement [IEC 60034-1:2022 cl. 6]
     # (from memory).
     assert _found(altitude="5000 m")["site-conditions"].severity == "problem"
 
