@@ -184,7 +184,8 @@ class Currents:
     or "rated current"); ``load_a`` the current on the driven load (from the equivalent
     circuit, or the nameplate current scaled to the load); ``formula_a`` is
     P / (sqrt(3) V eta PF); ``code_a`` the NEC table current read at ``code_hp`` (from
-    ``power_hp``), and ``conductor_a`` 125 % of it.
+    ``power_hp``), and ``conductor_a`` 125 % of it. The locked-rotor current moves to the
+    starting record when that stage is built.
     """
 
     full_load_a: float | None

@@ -25,6 +25,8 @@ def assess(machine: Machine, site: Site, *, explain: bool = False) -> Assessment
     choice, offer = rating.choose(machine, site)
     seen = supply.see(machine, site, choice, offer)
     at_site = running.run(machine, choice, seen)
+    # the starting, protection and remedies records are built here, from these three, and
+    # passed to the rules and the Assessment beside them
     found: list[Finding] = []
     for rule in RULES:
         found.extend(rule(machine, choice, seen, at_site))
