@@ -3,8 +3,8 @@
     python benchmarks/stages.py            # 3,000 generated machines x 3 sites, best of 7
     python benchmarks/stages.py 1000 3     # size and repeats
 
-Each stage is timed on fresh caches (circuit estimates, deratings, tolerance figures, rounded
-figures, messages), as a worker meets them; the best of the repeats is kept, the machines being
+Each stage is timed on fresh caches (circuit estimates, site deratings, efficiency classes), as a
+worker meets them; the best of the repeats is kept, the machines being
 noisy. See docs/performance.md.
 """
 
@@ -19,22 +19,17 @@ sys.path.insert(0, os.path.dirname(__file__))
 from generate import SITES, catalog
 
 from machinecheck import fleet as runner
-from machinecheck.engine import check
+from machinecheck.engine.pipeline import assess_all
 from machinecheck.inputs import units
 from machinecheck.inputs.catalog import catalog_from_data, sites_from_data, tomllib
-from machinecheck.physics import circuit, efficiency, environment, nec, unbalance
-from machinecheck.report import data, renderer
-from machinecheck.rules import connection
+from machinecheck.physics import circuit, efficiency, environment
+from machinecheck.report import renderer
 
 
 def _fresh_caches() -> None:
-    for cached in (circuit.estimate, environment.site_derating, check.tolerance_figures,
-                   efficiency.efficiency_class_of, efficiency.minimum_efficiency,
-                   nec.table_current, unbalance.unbalance_derating):
+    for cached in (circuit.estimate, environment.site_derating,
+                   efficiency.efficiency_class_of, efficiency.minimum_efficiency):
         cached.cache_clear()
-    for memo in (check._STAR_DELTA, data._TOLERANCE_DICTS, data._R1, data._R2, data._R3,
-                 data._R4, connection._CONNECT):
-        memo.clear()
 
 
 def main() -> None:
@@ -43,7 +38,6 @@ def main() -> None:
     text = catalog(size)
     sites = sites_from_data(tomllib.loads(SITES), "sites")
     units.parse("1 hp", "power")  # the unit cache is warm in a worker too
-    check._rules()
     chunk = renderer("json").chunk_bytes
     gc.set_threshold(50_000, 20, 20)  # as the check command sets it
     best: dict[str, float] = {}
@@ -64,7 +58,7 @@ def main() -> None:
         machines = catalog_from_data(parsed, "generated", text).machines
         keep("validation into the model", time.process_time() - start)
         start = time.process_time()
-        results = check.assess_all(machines, sites)
+        results = assess_all(machines, sites)
         keep("engine", time.process_time() - start)
         start = time.process_time()
         chunk(results)

@@ -20,7 +20,7 @@ import re
 import sys
 from dataclasses import dataclass, field
 
-from .engine.check import VERDICTS
+from .engine.assessment import VERDICTS
 from .report import renderer
 
 try:
@@ -144,7 +144,7 @@ def parse_piece(text: str) -> dict | None:
 
 
 def _checked(machines, sites, fmt, explain, problems_only):
-    from .engine.check import assess_all
+    from .engine.pipeline import assess_all
 
     tally, shown = Tally.of(assess_all(machines, sites, explain=explain), problems_only)
     # bytes: a worker's text crosses the pipe and reaches the file without re-encoding
@@ -171,10 +171,9 @@ class _Workers:
 
         # import what the workers run before forking, so each does not import it again
         from . import rules  # noqa: F401
-        from .engine import check
+        from .engine import pipeline  # noqa: F401
         from .inputs import catalog  # noqa: F401
 
-        check._rules()
         self._executor = ProcessPoolExecutor(min(workers, jobs),
                                              mp_context=multiprocessing.get_context("fork"))
 

@@ -427,7 +427,7 @@ def _streamed(machines, sites, fmt, explain, problems_only, bar):
 
 def _rendered(machines, sites, fmt, explain, problems_only, matrix, bar, *, to_terminal):
     """A format that sorts and groups (table, markdown, html): every pair kept, then rendered."""
-    from ..engine.check import assess_all
+    from ..engine.pipeline import assess_all
     from ..fleet import Tally
 
     progress = None if bar is None else (lambda: bar.update(1))

@@ -9,10 +9,12 @@ textbook worked examples. Reactances are given at the rated frequency and scale 
 from __future__ import annotations
 
 import math
+from collections.abc import Callable
 from dataclasses import dataclass
 from functools import lru_cache
 
 from ..errors import DomainError
+from .constants import synchronous_speed_rpm
 
 #: Share of X1 in the locked-rotor reactance X1 + X2 by NEMA design letter (IEEE Std 112,
 #: empirical distribution; from memory). IEC design N is taken as NEMA B and H as C.
@@ -82,7 +84,8 @@ def _design(design: str | None) -> str:
     return key if key in STATOR_LEAKAGE_SHARE else DEFAULT_DESIGN
 
 
-def _branches(z_in: complex, r1: float, x_lr: float, share: float, slip: float):
+def _branches(z_in: complex, r1: float, x_lr: float, share: float,
+              slip: float) -> tuple[float, float, float, float] | None:
     """(x1, x2, r2, xm) for a locked-rotor reactance, or None when no circuit fits it."""
     x1, x2 = share * x_lr, (1.0 - share) * x_lr
     y = 1.0 / (z_in - complex(r1, x1))
@@ -153,7 +156,7 @@ def estimate(power_w: float, voltage_v: float, frequency_hz: float, poles: int,
     """
     if not (power_w > 0 and voltage_v > 0 and frequency_hz > 0 and speed_rpm > 0):
         raise DomainError("needs rated output, voltage, frequency and speed")
-    n_s = 120.0 * frequency_hz / poles
+    n_s = synchronous_speed_rpm(frequency_hz, poles)
     slip = (n_s - speed_rpm) / n_s
     if not 0.0 < slip < 0.5:
         raise DomainError(f"rated slip {100 * slip:.1f} % is not that of a loaded induction motor")
@@ -195,7 +198,7 @@ def estimate(power_w: float, voltage_v: float, frequency_hz: float, poles: int,
     target = BREAKDOWN_RATIO[key] * power_w / (speed_rpm * math.pi / 30.0)
     w_sync = 4.0 * math.pi * frequency_hz / poles
 
-    def excess(x_lr):
+    def excess(x_lr: float) -> tuple[float | None, tuple[float, float, float, float] | None]:
         """(log T_max / target, branches) for a trial leakage, or (None, None) if infeasible."""
         fit = _branches(z_in, r1, x_lr, share, slip)
         if fit is None:
@@ -245,14 +248,15 @@ def estimate(power_w: float, voltage_v: float, frequency_hz: float, poles: int,
                    rated_speed_rpm=speed_rpm, current_fitted=current_fitted)
 
 
-def _thevenin(r1: float, x1: float, xm: float, v_ph: float):
+def _thevenin(r1: float, x1: float, xm: float, v_ph: float) -> tuple[float, float, float]:
     """(V_th, R_th, X_th) of the stator and magnetising branches, seen from the rotor."""
     v_th = v_ph * xm / math.sqrt(r1 * r1 + (x1 + xm) ** 2)
     z_th = complex(0.0, xm) * complex(r1, x1) / complex(r1, x1 + xm)
     return v_th, z_th.real, z_th.imag
 
 
-def _torque_terms(c: Circuit, voltage_v: float, frequency_hz: float):
+def _torque_terms(c: Circuit, voltage_v: float,
+                  frequency_hz: float) -> tuple[float, float, float, float]:
     """(V_th, R_th, X_th + X2, w_sync) of the circuit on a supply."""
     f_ratio = frequency_hz / c.frequency_hz
     v_th, r_th, x_th = _thevenin(c.r1_ohm, c.x1_ohm * f_ratio, c.xm_ohm * f_ratio,
@@ -340,7 +344,7 @@ def operating_point(c: Circuit, voltage_v: float, frequency_hz: float, slip: flo
     p_in = 3.0 * v_ph * i1 * pf
     p_ag = p_in - 3.0 * i1 * i1 * c.r1_ohm
     p_conv = (1.0 - slip) * p_ag
-    n_s = 120.0 * frequency_hz / c.poles
+    n_s = synchronous_speed_rpm(frequency_hz, c.poles)
     speed = (1.0 - slip) * n_s
     if rotational_loss_w is None:
         rotational_loss_w = rotational_loss(c, speed)
@@ -354,7 +358,8 @@ def operating_point(c: Circuit, voltage_v: float, frequency_hz: float, slip: flo
                           t_max, s_max)
 
 
-def solve(c: Circuit, voltage_v: float, frequency_hz: float, load_torque) -> OperatingPoint | None:
+def solve(c: Circuit, voltage_v: float, frequency_hz: float,
+          load_torque: Callable[[float], float]) -> OperatingPoint | None:
     """Operating point where the shaft torque meets the load on the stable branch.
 
     Solves T_ind(s) = T_load(n) + P_rot(n) / w_m for 0 < s <= s_max, using
@@ -381,26 +386,26 @@ def solve(c: Circuit, voltage_v: float, frequency_hz: float, load_torque) -> Ope
     """
     v_th, r_th, x_total, w_sync = _torque_terms(c, voltage_v, frequency_hz)
     x2sq = x_total * x_total
-    n_s = 120.0 * frequency_hz / c.poles
+    n_s = synchronous_speed_rpm(frequency_hz, c.poles)
     k = 3.0 * v_th * v_th / w_sync
     r2 = c.r2_ohm
     p_rot, n_rot = c.rotational_loss_w, c.rated_speed_rpm
 
     rotational = p_rot / (n_rot * n_rot) * (30.0 / math.pi)
 
-    def asked(s):
+    def asked(s: float) -> float:
         """Load torque plus rotational torque P_rot (n / n_rated)^2 / w_m at slip s."""
         n = (1.0 - s) * n_s
         return load_torque(n) + rotational * n
 
-    def induced(s):
+    def induced(s: float) -> float:
         r = r2 / s
         return k * r / ((r_th + r) ** 2 + x2sq)
 
-    def excess(s):
+    def excess(s: float) -> float:
         return induced(s) - asked(s)
 
-    def slip_for(t):
+    def slip_for(t: float) -> float | None:
         """Slip on the stable branch where T_ind = t: the larger root r = R2/s of
         t r^2 + (2 t R_th - k) r + t (R_th^2 + X^2) = 0; None above the breakdown torque."""
         b = k - 2.0 * t * r_th
@@ -432,7 +437,7 @@ def solve(c: Circuit, voltage_v: float, frequency_hz: float, load_torque) -> Ope
         if abs(residual) <= 1e-8 * s:
             return operating_point(c, voltage_v, frequency_hz, target, breakdown_point=peak)
         step = target
-        if s_before is not None and residual != residual_before:
+        if s_before is not None and residual_before is not None and residual != residual_before:
             step = s - residual * (s - s_before) / (residual - residual_before)
         s_before, residual_before = s, residual
         s = step

@@ -27,7 +27,7 @@ MAX_ALTITUDE_M = _ALTITUDES[-1]
 MAX_AMBIENT_DEGC = _AMBIENTS[-1]
 
 
-def _bracket(axis, value):
+def _bracket(axis: tuple[float, ...], value: float) -> tuple[int, float]:
     i = min(max(bisect.bisect_right(axis, value) - 1, 0), len(axis) - 2)
     t = (value - axis[i]) / (axis[i + 1] - axis[i])
     return i, min(max(t, 0.0), 1.0)

@@ -19,10 +19,34 @@ def flux_ratio(voltage_v: float, rated_voltage_v: float, frequency_hz: float,
     .. [1] NEMA MG 1 12.44.2; flux proportional to V/f, e.g. Chapman, *Electric Machinery
        Fundamentals*, sec. 6.9 (variable-frequency speed control).
     """
-    values = (voltage_v, rated_voltage_v, frequency_hz, rated_frequency_hz)
-    if not all(v > 0 and math.isfinite(v) for v in values):
+    if not (0 < voltage_v < math.inf and 0 < rated_voltage_v < math.inf
+            and 0 < frequency_hz < math.inf and 0 < rated_frequency_hz < math.inf):
+        values = (voltage_v, rated_voltage_v, frequency_hz, rated_frequency_hz)
         raise DomainError(f"voltages and frequencies must be positive, got {values!r}")
     return (voltage_v / rated_voltage_v) / (frequency_hz / rated_frequency_hz)
+
+
+def rated_flux_voltage(rated_voltage_v: float, frequency_ratio: float) -> float:
+    """Voltage that keeps rated V/f at another frequency, V_rated x f / f_rated [V].
+
+    References
+    ----------
+    .. [1] NEMA MG 1 12.44.2; flux proportional to V/f (Chapman, sec. 6.9).
+    """
+    return rated_voltage_v * frequency_ratio
+
+
+def uprated_output(rated_power_w: float, frequency_ratio: float, flux_ratio_: float) -> float:
+    """Output a machine could give at a higher frequency with rated flux, P x f / f_rated
+    (limited by the flux actually reached) [W]; to be confirmed by the manufacturer.
+
+    P_up = P_rated x min(f / f_rated x min(1, k), f / f_rated)
+
+    References
+    ----------
+    .. [1] Torque at rated flux is unchanged, so power rises with speed: Chapman, sec. 6.9.
+    """
+    return rated_power_w * min(frequency_ratio * min(1.0, flux_ratio_), frequency_ratio)
 
 
 def torque_capability(flux_ratio_: float) -> float:
@@ -105,4 +129,4 @@ def cooling_derating(speed_ratio: float, cooling_code: str) -> float:
         raise DomainError(f"speed ratio must be positive, got {speed_ratio!r}")
     if speed_ratio >= 1.0 or cooling_code.upper() not in SHAFT_FAN_ENCLOSED:
         return 1.0
-    return speed_ratio ** SHAFT_FAN_EXPONENT
+    return float(speed_ratio ** SHAFT_FAN_EXPONENT)

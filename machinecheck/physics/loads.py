@@ -3,6 +3,7 @@
 from __future__ import annotations
 
 import math
+from collections.abc import Callable
 
 from ..errors import DomainError
 
@@ -34,7 +35,8 @@ def torque_ratio(load_type: str, speed_ratio: float) -> float:
     return float(speed_ratio ** exponent)
 
 
-def torque_curve(load_type: str, torque_nm: float, reference_speed_rpm: float):
+def torque_curve(load_type: str, torque_nm: float,
+                 reference_speed_rpm: float) -> Callable[[float], float]:
     """The load's torque as a function of shaft speed: n [rpm] -> T [N m].
 
     ``torque_nm`` is the torque at ``reference_speed_rpm``; the curve follows
@@ -49,6 +51,17 @@ def torque_curve(load_type: str, torque_nm: float, reference_speed_rpm: float):
         return lambda n: torque_nm
     power = torque_nm * reference_speed_rpm
     return lambda n: power / n if n > 0 else math.inf
+
+
+def constant_power_reference(power_w: float) -> tuple[float, float]:
+    """A constant-power load of ``power_w`` as (torque [N m], at speed [rpm]) for
+    :func:`torque_curve`: the torque it would ask at 1 rpm, T = P x 30 / pi.
+
+    References
+    ----------
+    .. [1] Definition of mechanical power, P = T * omega, omega = 2 pi n / 60.
+    """
+    return power_w * 30.0 / math.pi, 1.0
 
 
 def power_ratio(load_type: str, speed_ratio: float) -> float:
@@ -88,4 +101,4 @@ def impeller_trim(head_ratio_wanted: float, speed_ratio: float) -> float:
     """
     if not (speed_ratio > 0 and head_ratio_wanted > 0):
         raise DomainError("ratios must be positive")
-    return head_ratio_wanted ** 0.5 / speed_ratio
+    return float(head_ratio_wanted ** 0.5) / speed_ratio

@@ -3,14 +3,14 @@
 from __future__ import annotations
 
 import bisect
-import functools
 
 from ..errors import DomainError
+from .constants import CONDUCTOR_FACTOR
 
 # NFPA 70 (2008 and later) Table 430.250, three-phase induction motors, amperes.
 _COLUMNS_3PH: tuple[float, ...] = (115.0, 200.0, 208.0, 230.0, 460.0, 575.0, 2300.0)
 _N = None
-_TABLE_3PH: dict[float, tuple] = {
+_TABLE_3PH: dict[float, tuple[float | None, ...]] = {
     0.5: (4.4, 2.5, 2.4, 2.2, 1.1, 0.9, _N), 0.75: (6.4, 3.7, 3.5, 3.2, 1.6, 1.3, _N),
     1: (8.4, 4.8, 4.6, 4.2, 2.1, 1.7, _N), 1.5: (12.0, 6.9, 6.6, 6.0, 3.0, 2.4, _N),
     2: (13.6, 7.8, 7.5, 6.8, 3.4, 2.7, _N), 3: (_N, 11.0, 10.6, 9.6, 4.8, 3.9, _N),
@@ -28,14 +28,14 @@ _TABLE_3PH: dict[float, tuple] = {
 }
 # Same table, synchronous motors at unity power factor.
 _COLUMNS_SYNC: tuple[float, ...] = (230.0, 460.0, 575.0, 2300.0)
-_TABLE_SYNC: dict[float, tuple] = {
+_TABLE_SYNC: dict[float, tuple[float | None, ...]] = {
     25: (53, 26, 21, _N), 30: (63, 32, 26, _N), 40: (83, 41, 33, _N), 50: (104, 52, 42, _N),
     60: (123, 61, 49, 12), 75: (155, 78, 62, 15), 100: (202, 101, 81, 20),
     125: (253, 126, 101, 25), 150: (302, 151, 121, 30), 200: (400, 201, 161, 40),
 }
 # Table 430.248, single-phase motors.
 _COLUMNS_1PH: tuple[float, ...] = (115.0, 200.0, 208.0, 230.0)
-_TABLE_1PH: dict[float, tuple] = {
+_TABLE_1PH: dict[float, tuple[float | None, ...]] = {
     1 / 6: (4.4, 2.5, 2.4, 2.2), 0.25: (5.8, 3.3, 3.2, 2.9), 1 / 3: (7.2, 4.1, 4.0, 3.6),
     0.5: (9.8, 5.6, 5.4, 4.9), 0.75: (13.8, 7.9, 7.6, 6.9), 1: (16, 9.2, 8.8, 8.0),
     1.5: (20, 11.5, 11.0, 10), 2: (24, 13.8, 13.2, 12), 3: (34, 19.6, 18.7, 17),
@@ -46,8 +46,6 @@ _VOLTAGE_BANDS = ((110.0, 120.0, 115.0), (199.0, 201.0, 200.0), (207.0, 209.0, 2
                   (220.0, 240.0, 230.0), (440.0, 480.0, 460.0), (550.0, 600.0, 575.0),
                   (2300.0, 2400.0, 2300.0))
 
-#: Conductors for one continuous-duty motor: 125 % of the table current (NEC 430.22).
-CONDUCTOR_FACTOR = 1.25
 #: Synchronous motor multipliers for leading power factor (Table 430.250 footnote).
 SYNC_PF_MULTIPLIER = {1.0: 1.0, 0.9: 1.1, 0.8: 1.25}
 #: Conversion slack: kW ratings that are the metric twin of a hp size (7.5 kW = 10.06 hp).
@@ -88,7 +86,6 @@ def table_column(motor_voltage_v: float) -> float | None:
     return None
 
 
-@functools.lru_cache(maxsize=4096)  # a fleet has few distinct sizes and winding voltages
 def table_current(power_hp: float, motor_voltage_v: float, phases: int = 3,
                   synchronous: bool = False, power_factor: float = 1.0) -> tuple[float, int | float] | None:
     """NEC table full-load current for a motor, and the standard hp it was read at.
@@ -134,3 +131,18 @@ def table_current(power_hp: float, motor_voltage_v: float, phases: int = 3,
         nearest = min(SYNC_PF_MULTIPLIER, key=lambda pf: abs(pf - power_factor))
         value = value * SYNC_PF_MULTIPLIER[nearest]
     return float(value), hp
+
+
+def conductor_current(table_current_a: float) -> float:
+    """Current the branch-circuit conductors of one continuous-duty motor carry, 125 % [A].
+
+    Parameters
+    ----------
+    table_current_a : full-load current from Table 430.250/430.248 [A]
+
+    References
+    ----------
+    .. [1] NFPA 70 (NEC) 430.22: conductors at least 125 % of the motor's full-load current
+       rating as determined by 430.6(A)(1).
+    """
+    return CONDUCTOR_FACTOR * table_current_a

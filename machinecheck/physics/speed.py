@@ -5,6 +5,7 @@ from __future__ import annotations
 import math
 
 from ..errors import DomainError
+from .constants import synchronous_speed_rpm
 
 #: Largest full-load slip accepted when inferring poles; above it the plate is inconsistent.
 MAX_RATED_SLIP = 0.10
@@ -33,7 +34,7 @@ def synchronous_speed(frequency_hz: float, poles: int) -> float:
         raise DomainError(f"poles must be a positive even number, got {poles!r}")
     if not (frequency_hz > 0 and math.isfinite(frequency_hz)):
         raise DomainError(f"frequency must be positive, got {frequency_hz!r} Hz")
-    return 120.0 * frequency_hz / poles
+    return synchronous_speed_rpm(frequency_hz, poles)
 
 
 def poles_from_speed(rated_speed_rpm: float, frequency_hz: float, *,
@@ -68,7 +69,8 @@ def poles_from_speed(rated_speed_rpm: float, frequency_hz: float, *,
     ratio = 120.0 * frequency_hz / rated_speed_rpm
     if synchronous:
         poles = round(ratio / 2) * 2
-        if poles < 2 or abs(120.0 * frequency_hz / poles - rated_speed_rpm) > 0.005 * rated_speed_rpm:
+        n_s = synchronous_speed_rpm(frequency_hz, poles) if poles >= 2 else 0.0
+        if poles < 2 or abs(n_s - rated_speed_rpm) > 0.005 * rated_speed_rpm:
             raise DomainError(
                 f"{rated_speed_rpm:g} rpm is not a synchronous speed at {frequency_hz:g} Hz "
                 f"(120 f / p for an even p)")
@@ -78,7 +80,7 @@ def poles_from_speed(rated_speed_rpm: float, frequency_hz: float, *,
         raise DomainError(
             f"{rated_speed_rpm:g} rpm is at or above the 2-pole synchronous speed "
             f"{60 * frequency_hz:g} rpm at {frequency_hz:g} Hz")
-    n_s = 120.0 * frequency_hz / poles
+    n_s = synchronous_speed_rpm(frequency_hz, poles)
     s = (n_s - rated_speed_rpm) / n_s
     if s <= 0:
         raise DomainError(
@@ -200,3 +202,42 @@ def shaft_torque(power_w: float, speed_rpm: float) -> float:
     if not speed_rpm > 0:
         raise DomainError(f"speed must be positive, got {speed_rpm!r} rpm")
     return power_w / (speed_rpm * math.pi / 30.0)
+
+
+def shaft_power(torque_nm: float, speed_rpm: float) -> float:
+    """Shaft power P = T * omega [W] from torque [N*m] and speed [rpm].
+
+    References
+    ----------
+    .. [1] Definition of mechanical power, P = T * omega, omega = 2 pi n / 60.
+    """
+    return torque_nm * speed_rpm * math.pi / 30.0
+
+
+#: The linear slip rule holds for flux ratios in this range and loads up to this multiple of
+#: rated torque (common practice, no published source).
+SLIP_RULE_FLUX_RANGE = (0.8, 1.2)
+SLIP_RULE_MAX_TORQUE_RATIO = 1.5
+
+
+def slip_rule_valid(flux_ratio_: float, torque_ratio: float | None) -> bool:
+    """Whether :func:`slip_rule_speed` is inside the region where slip is linear in torque.
+
+    Parameters
+    ----------
+    flux_ratio_ : k = (V / V_rated) / (f / f_rated) [-]
+    torque_ratio : load torque over rated torque at the running speed [-], None when unknown
+    """
+    low, high = SLIP_RULE_FLUX_RANGE
+    return (low <= flux_ratio_ <= high) and (
+        torque_ratio is None or torque_ratio <= SLIP_RULE_MAX_TORQUE_RATIO)
+
+
+def speed_at_slip(synchronous_speed_rpm_: float, slip_: float) -> float:
+    """Rotor speed n = (1 - s) n_s [rpm] at per-unit slip s.
+
+    References
+    ----------
+    .. [1] S. J. Chapman, *Electric Machinery Fundamentals*, ch. 7 (definition of slip).
+    """
+    return (1.0 - slip_) * synchronous_speed_rpm_

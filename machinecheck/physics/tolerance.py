@@ -114,7 +114,7 @@ def is_normal_pairing(system_voltage_v: float, motor_voltage_v: float) -> bool:
     return False
 
 
-def _polygon(constraints) -> list[tuple[float, float]]:
+def _polygon(constraints: list[tuple[float, float, float]]) -> list[tuple[float, float]]:
     """Vertices (df, dU) of the convex region a*df + b*dU <= c, counter-clockwise."""
     points = []
     for i, (a1, b1, c1) in enumerate(constraints):

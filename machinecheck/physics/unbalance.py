@@ -2,13 +2,14 @@
 
 from __future__ import annotations
 
-import functools
 import math
+from collections.abc import Iterable
 
 from ..errors import DomainError
+from .constants import UNBALANCE_LIMIT
 
 
-def voltage_unbalance(line_voltages_v) -> float:
+def voltage_unbalance(line_voltages_v: Iterable[float]) -> float:
     """Percent unbalance per NEMA: largest deviation from the average over the average [-].
 
     Not (Vmax - Vmin) / Vavg, which about doubles the figure.
@@ -39,11 +40,7 @@ def voltage_unbalance(line_voltages_v) -> float:
 UNBALANCE_DERATING = ((0.0, 1.0), (0.01, 1.0), (0.015, 0.97), (0.02, 0.95), (0.025, 0.93),
                       (0.03, 0.89), (0.035, 0.85), (0.04, 0.82), (0.045, 0.78), (0.05, 0.76))
 
-#: Above this unbalance NEMA advises against operation.
-UNBALANCE_LIMIT = 0.05
 
-
-@functools.lru_cache(maxsize=256)  # one figure a site, asked once a pair
 def unbalance_derating(unbalance: float) -> float:
     """Output factor for a three-phase motor on an unbalanced supply [-].
 

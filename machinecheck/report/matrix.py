@@ -2,16 +2,20 @@
 
 from __future__ import annotations
 
+from collections.abc import Iterable
 
-def verdict_matrix(assessments):
+from ..engine.assessment import Assessment, Verdict
+
+
+def verdict_matrix(
+        assessments: Iterable[Assessment],
+) -> tuple[list[str], list[str], dict[tuple[str, str], Verdict]]:
     """Return (machine ids, site ids, {(machine, site): verdict}) in first-seen order."""
-    machines, sites, cells = [], [], {}
+    cells: dict[tuple[str, str], Verdict] = {}
+    machines: dict[str, None] = {}
+    sites: dict[str, None] = {}
     for a in assessments:
-        if a.machine.id not in cells.setdefault("_m", set()):
-            cells["_m"].add(a.machine.id)
-            machines.append(a.machine.id)
-        if a.site.id not in cells.setdefault("_s", set()):
-            cells["_s"].add(a.site.id)
-            sites.append(a.site.id)
+        machines.setdefault(a.machine.id)
+        sites.setdefault(a.site.id)
         cells[(a.machine.id, a.site.id)] = a.verdict
-    return machines, sites, {k: v for k, v in cells.items() if isinstance(k, tuple)}
+    return list(machines), list(sites), cells

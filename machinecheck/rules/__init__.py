@@ -1,9 +1,17 @@
-"""Rules: small functions from an Assessment's figures to findings, one family a module.
+"""Rules: typed functions from the engine's records to findings, one family a module.
 
-Adding a check means adding a rule here, not growing the engine.
+Every rule takes the same records, (machine, choice, supply, running), and returns a tuple of
+:class:`~machinecheck.engine.assessment.Finding`; the order of :data:`RULES` is the order of
+the findings in every report. Adding a check means adding a rule, not growing the engine.
 """
 
-from ..rules import (
+from __future__ import annotations
+
+from collections.abc import Callable
+
+from ..engine.assessment import Finding, RatingChoice, Running, Supply
+from ..model import Machine
+from . import (
     connection,
     current,
     efficiency,
@@ -16,7 +24,9 @@ from ..rules import (
     supply,
 )
 
-RULES = (
+Rule = Callable[[Machine, RatingChoice, Supply, Running], tuple[Finding, ...]]
+
+RULES: tuple[Rule, ...] = (
     phases.check,
     supply.check,
     frequency.check,

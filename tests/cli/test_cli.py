@@ -266,7 +266,7 @@ def test_parallel_stream_matches_the_serial_one(monkeypatch):
 
 def test_streamed_json_equals_the_whole_document():
     from machinecheck.cli.main import _demo_path
-    from machinecheck.engine.check import assess_all
+    from machinecheck.engine.pipeline import assess_all
     from machinecheck.inputs.catalog import load_catalog, load_sites
     from machinecheck.report import json_
 
@@ -278,7 +278,7 @@ def test_streamed_json_equals_the_whole_document():
 
 def test_narrow_terminal_lists_findings_below_the_table():
     from machinecheck.cli.main import _demo_path
-    from machinecheck.engine.check import assess_all
+    from machinecheck.engine.pipeline import assess_all
     from machinecheck.inputs.catalog import load_catalog, load_sites
     from machinecheck.report import table
 

@@ -3,16 +3,16 @@ import math
 import pytest
 from helpers import codes, machine, site
 
-from machinecheck.engine.check import assess
+from machinecheck.engine.pipeline import assess
 
 NEMA_50HP = {"frequency": "60 Hz", "voltage": "460 V", "power": "50 hp", "speed": "1775 rpm",
              "efficiency": 0.93, "power_factor": 0.85}
 
 
 def test_issue_example_60hz_motor_on_400v_50hz():
-    # The issue's acceptance example: 50 hp 460 V 60 Hz 1775 rpm on 400 V 50 Hz -> 1500 rpm
-    # synchronous, about 1475-1490 rpm running, output at most 5/6 of rated, conditional.
-    # (n_s: IEC 60034-1 definition; output bound: practice notes Q3.)
+    # 50 hp 460 V 60 Hz 1775 rpm on 400 V 50 Hz -> 1500 rpm synchronous (n_s = 120 f / p,
+    # [Chapman 2005 ch. 3]), about 1475-1490 rpm running, output at most 5/6 of rated at
+    # constant V/f (torque kept, speed x 5/6: [Chapman 2005 ch. 7]), conditional.
     a = assess(machine(NEMA_50HP), site(frequency="50 Hz", voltage="400 V", standard="IEC"))
     assert a.synchronous_speed_rpm == pytest.approx(1500)
     assert 1475 <= a.expected_speed_rpm <= 1490
@@ -22,7 +22,8 @@ def test_issue_example_60hz_motor_on_400v_50hz():
 
 
 def test_same_machine_on_480v_60hz_nema_is_normal_pairing():
-    # standards.md 2.5 (ANSI C84.1): 480 V systems feed 460 V motors; +4.3 % is within MG 1 12.44.
+    # 480 V systems feed 460 V motors [ANSI C84.1-2020 Table 1]; +4.3 % is within
+    # [NEMA MG 1-2016 §12.44].
     a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="480 V", standard="NEMA"))
     assert a.verdict == "compatible"
     assert "normal-pairing" in codes(a)
@@ -30,7 +31,8 @@ def test_same_machine_on_480v_60hz_nema_is_normal_pairing():
 
 
 def test_230v_motor_on_208v_is_warned():
-    # NEMA MG 1 12.44 (practice notes Q9): -9.6 % is allowed, warned; torque about 0.82.
+    # -9.6 % is inside +-10 % [NEMA MG 1-2016 §12.44], warned; torque ~ V^2: 0.904^2 = 0.82
+    # [NEMA MG 1-2016 §12.44.2].
     m = machine({"frequency": "60 Hz", "voltage": "230 V", "power": "5 hp", "speed": "1745 rpm",
                  "current": "13.2 A"})
     a = assess(m, site(frequency="60 Hz", voltage="208 V", standard="NEMA"))
@@ -56,12 +58,13 @@ def test_iec_zone_verdicts(volts, zone, verdict):
     # IEC 60034-1 7.3 zones A/B at rated frequency.
     m = machine({"frequency": "50 Hz", "voltage": "400 V", "power": "11 kW", "speed": "1460 rpm"})
     a = assess(m, site(frequency="50 Hz", voltage=f"{volts} V", standard="IEC"))
-    assert a.tolerance["zone"] == zone
+    assert a.supply.tolerance.zone == zone
     assert a.verdict == verdict
 
 
 def test_overflux_above_ten_percent_is_incompatible():
-    # 460 V 60 Hz motor left on 460 V 50 Hz: +20 % flux (practice notes Q3 mistakes).
+    # 460 V 60 Hz motor left on 460 V 50 Hz: k = 1 / (50 / 60) = 1.2, +20 % flux
+    # [Chapman 2005 ch. 7] (flux ~ V/f); above +10 % is common practice, no published source.
     a = assess(machine(NEMA_50HP), site(frequency="50 Hz", voltage="460 V", standard="IEC"))
     assert a.flux_ratio == pytest.approx(1.2)
     assert "overflux" in codes(a, "problem")
@@ -69,19 +72,20 @@ def test_overflux_above_ten_percent_is_incompatible():
 
 
 def test_50hz_motor_on_60hz_same_voltage_underflux_warned():
-    # practice notes Q4: flux 83 %, torque capability 0.69, rated kW kept.
+    # k = 1 / 1.2 = 0.833, torque capability k^2 = 0.69 [NEMA MG 1-2016 §12.44.2]; rated kW
+    # kept (common practice, no published source).
     m = machine({"frequency": "50 Hz", "voltage": "400 V", "power": "11 kW", "speed": "1460 rpm"})
     a = assess(m, site(frequency="60 Hz", voltage="400 V", standard="IEC"))
     assert a.flux_ratio == pytest.approx(5 / 6)
-    assert a.torque_capability == pytest.approx(0.694, abs=1e-3)
+    assert a.running.torque_capability == pytest.approx(0.694, abs=1e-3)
     assert "underflux" in codes(a, "warning")
     assert a.available_power_w == pytest.approx(11000)
     assert "speed-increase" in codes(a)
 
 
 def test_pump_moved_50_to_60hz_overloads_motor():
-    # practice notes Q15: a 50 Hz pump on 60 Hz wants about 1.73-1.75 x the power at rated
-    # slip; solved with the load, the overloaded motor slips more, so a little less.
+    # A 50 Hz pump on 60 Hz wants 1.2^3 = 1.73 x the power at rated slip [Karassik 2008 ch. 2]
+    # (affinity laws); solved with the load, the overloaded motor slips more, so a little less.
     m = machine({"frequency": "50 Hz", "voltage": "400 V", "power": "11 kW", "speed": "1460 rpm"},
                 load={"type": "centrifugal", "power": "10 kW"})
     a = assess(m, site(frequency="60 Hz", voltage="480 V", standard="NEMA"))
@@ -92,10 +96,10 @@ def test_pump_moved_50_to_60hz_overloads_motor():
 
 
 def test_pump_moved_60_to_50hz_loses_head():
-    # practice notes Q14: flow x0.833, head x0.694, power x0.579 (affinity laws).
+    # At 5/6 speed: flow x0.833, head x0.694, power x0.579 [Karassik 2008 ch. 2] (affinity laws).
     m = machine(NEMA_50HP, load={"type": "centrifugal", "power": "40 hp"})
     a = assess(m, site(frequency="50 Hz", voltage="380 V", standard="IEC"))
-    assert a.head_ratio == pytest.approx(0.70, abs=0.01)
+    assert a.running.load.head_ratio == pytest.approx(0.70, abs=0.01)
     assert "duty-shortfall" in codes(a, "warning")
 
 
@@ -112,7 +116,8 @@ def test_dual_frequency_plate_uses_its_own_set():
 
 
 def test_dual_voltage_picks_connection():
-    # practice notes Q7: 230/460 V plate, low = parallel, high = series.
+    # 230/460 V plate: low voltage = windings in parallel, high = series [NEMA MG 1-2016 Part 2]
+    # (from memory).
     m = machine({"frequency": "60 Hz", "voltage": ["230 V", "460 V"],
                  "connection": ["low", "high"], "current": ["24 A", "12 A"], "power": "10 hp",
                  "speed": "1760 rpm"})
@@ -122,7 +127,8 @@ def test_dual_voltage_picks_connection():
 
 
 @pytest.mark.parametrize("plate,power,speed_,supply,frequency,standard,connection,star_delta", [
-    # practice notes Q8: 400 delta / 690 star on 400 V -> delta, star-delta possible
+    # 400 delta / 690 star on 400 V -> delta, star-delta possible (690 / 400 = sqrt(3), common
+    # practice, no published source)
     (["400 V", "690 V"], "55 kW", "1480 rpm", "400 V", "50 Hz", "IEC", "delta", True),
     (["400 V", "690 V"], "55 kW", "1480 rpm", "690 V", "50 Hz", "IEC", "star", False),
     # 230 delta / 400 star on 400 V -> star only, no star-delta starter
@@ -136,7 +142,7 @@ def test_delta_star_connection(plate, power, speed_, supply, frequency, standard
                  "power": power, "speed": speed_})
     a = assess(m, site(frequency=frequency, voltage=supply, standard=standard))
     assert a.connection.name == connection
-    assert a.star_delta_possible is star_delta
+    assert a.running.star_delta_possible is star_delta
     assert a.flux_ratio == pytest.approx(1.0)
 
 
@@ -157,7 +163,7 @@ def test_single_phase_motor_on_wye_uses_line_to_neutral():
 
 
 def test_synchronous_motor_runs_at_synchronous_speed():
-    # practice notes Q23: exactly 120 f / p.
+    # A synchronous motor runs at exactly n_s = 120 f / p [Chapman 2005 ch. 5].
     m = machine({"frequency": "60 Hz", "voltage": "460 V", "power": "200 hp", "speed": "1800 rpm"},
                 kind="synchronous-motor")
     a = assess(m, site(frequency="50 Hz", voltage="400 V", standard="IEC"))
@@ -165,8 +171,9 @@ def test_synchronous_motor_runs_at_synchronous_speed():
 
 
 def test_generator_60_to_50hz_five_sixths():
-    # standards.md section 7 / practice notes Q24: 4-pole needs 1500 rpm for 50 Hz; kVA about
-    # 5/6 with the voltage dropped in proportion (480 -> 400 V) [from memory].
+    # 4-pole needs 120 x 50 / 4 = 1500 rpm for 50 Hz [Chapman 2005 ch. 4]; kVA about 5/6 with
+    # the voltage dropped in proportion (480 -> 400 V) at rated current (common practice, from
+    # memory).
     m = machine({"frequency": "60 Hz", "voltage": "480 V", "power": "500 kVA", "speed": "1800 rpm"},
                 kind="synchronous-generator", poles=4)
     a = assess(m, site(frequency="50 Hz", voltage="400 V", standard="IEC"))
@@ -177,7 +184,7 @@ def test_generator_60_to_50hz_five_sixths():
 
 
 def test_generator_kept_at_480v_on_50hz_overexcited():
-    # practice notes Q24 mistake: keeping 480 V at 50 Hz overexcites the machine.
+    # Keeping 480 V at 50 Hz is V/f x 1.2: overexcited [Chapman 2005 ch. 4] (flux ~ V/f).
     m = machine({"frequency": "60 Hz", "voltage": "480 V", "power": "500 kVA", "speed": "1800 rpm"},
                 kind="synchronous-generator")
     a = assess(m, site(frequency="50 Hz", voltage="480 V", standard="IEC"))
@@ -188,8 +195,8 @@ def test_unbalance_from_line_voltages():
     # NEMA MG 1 Part 14: 460/467/450 V -> 1.96 %, derate about 0.95.
     a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="460 V", standard="NEMA",
                                         line_voltages=["460 V", "467 V", "450 V"]))
-    assert a.unbalance == pytest.approx(0.0196, abs=1e-4)
-    assert a.factors["unbalance"] == pytest.approx(0.95, abs=0.01)
+    assert a.running.derates.unbalance == pytest.approx(0.0196, abs=1e-4)
+    assert a.running.derates.factor("unbalance") == pytest.approx(0.95, abs=0.01)
     assert "voltage-unbalance" in codes(a, "warning")
 
 
@@ -200,11 +207,12 @@ def test_unbalance_above_five_percent_incompatible():
 
 
 def test_altitude_and_ambient_derating_multiply():
-    # common practice table (standards.md 1.2): 2000 m, 50 degC -> 0.86
+    # 2000 m, 50 degC -> 0.86 (common practice: a motor maker's altitude x ambient table, no
+    # published standard source)
     a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="460 V", standard="NEMA",
                                         altitude="2000 m", ambient="50 degC",
                                         unbalance="2 %"))
-    assert a.factors["site"] == pytest.approx(0.86)
+    assert a.running.derates.factor("site") == pytest.approx(0.86)
     assert a.combined_factor == pytest.approx(0.86 * 0.95, abs=0.005)
 
 
@@ -216,30 +224,31 @@ def test_max_speed_exceeded_on_50_to_60():
 
 
 def test_nameplate_current_cross_check():
-    # the issue: flag a nameplate current more than ~10 % off P / (sqrt3 V eta PF).
+    # A nameplate current more than ~10 % off P / (sqrt3 V eta PF) is flagged (common practice,
+    # no published source).
     m = machine({**NEMA_50HP, "current": "80 A"})
     a = assess(m, site(frequency="60 Hz", voltage="460 V", standard="NEMA"))
     assert "current-mismatch" in codes(a, "warning")
 
 
 def test_nec_code_current_for_nema_site():
-    # NFPA 70 Table 430.250: 50 hp 460 V -> 65 A; conductors 125 % (430.22).
+    # 50 hp 460 V -> 65 A [NFPA 70:2008 Table 430.250]; conductors 125 % [NFPA 70:2008 §430.22].
     a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="480 V", standard="NEMA"))
     assert a.code_current_a == 65
     assert "code-current" in codes(a)
 
 
 def test_service_factor_reset_off_rated_supply():
-    # NEMA MG 1 14.37: SF applies only at rated voltage and frequency.
+    # SF applies only at rated voltage and frequency [NEMA MG 1-2016 §14.37] (from memory).
     m = machine(NEMA_50HP, service_factor=1.15)
     on = assess(m, site(frequency="60 Hz", voltage="460 V", standard="NEMA"))
     off = assess(m, site(frequency="50 Hz", voltage="380 V", standard="IEC"))
-    assert on.service_factor_at_site == 1.15
-    assert off.service_factor_at_site == 1.0
+    assert on.running.service_factor_at_site == 1.15
+    assert off.running.service_factor_at_site == 1.0
 
 
 def test_efficiency_class_required_by_site():
-    # IEC 60034-30-1: 4 kW 4-pole 50 Hz at 85.9 % is below IE2 (86.6 %).
+    # 4 kW 4-pole 50 Hz at 85.9 % is below IE2 (86.6 %) [IEC 60034-30-1:2014 §6, 50 Hz table].
     m = machine({"frequency": "50 Hz", "voltage": "400 V", "power": "4 kW", "speed": "1440 rpm",
                  "efficiency": "85.9 %"}, efficiency_class="IE2")
     a = assess(m, site(frequency="50 Hz", voltage="400 V", standard="IEC",
@@ -250,7 +259,7 @@ def test_efficiency_class_required_by_site():
 
 def test_demo_shows_all_three_verdicts():
     from machinecheck.cli.main import _demo_path
-    from machinecheck.engine.check import assess_all
+    from machinecheck.engine.pipeline import assess_all
     from machinecheck.inputs.catalog import load_catalog, load_sites
 
     results = assess_all(load_catalog(_demo_path("fleet.toml")).machines,
@@ -260,15 +269,15 @@ def test_demo_shows_all_three_verdicts():
 
 
 def test_rated_supply_gives_back_the_plate_through_the_circuit():
-    # The circuit estimate reproduces its own plate (issue requirement); the current is
+    # The circuit estimate reproduces its own plate (by construction); the current is
     # P / (sqrt(3) V eta PF) = 37.28 kW / (sqrt(3) 460 V 0.93 0.85) = 59.2 A (derived).
     a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="460 V", standard="NEMA"))
     assert a.operating_point_basis == "equivalent circuit"
     assert a.expected_speed_rpm == pytest.approx(1775, abs=0.1)
-    assert a.rule_speed_rpm == pytest.approx(1775, abs=0.1)
+    assert a.running.operating.rule_speed_rpm == pytest.approx(1775, abs=0.1)
     assert a.operating_current_a == pytest.approx(59.2, abs=0.1)
-    assert a.operating_power_factor == pytest.approx(0.85, abs=1e-3)
-    assert a.operating_efficiency == pytest.approx(0.93, abs=1e-3)
+    assert a.running.operating.power_factor == pytest.approx(0.85, abs=1e-3)
+    assert a.running.operating.efficiency == pytest.approx(0.93, abs=1e-3)
     assert a.breakdown_margin == pytest.approx(2.5, rel=1e-3)  # the design B figure fitted
 
 
@@ -284,11 +293,12 @@ def test_deep_undervoltage_stalls_at_full_load():
     # 460 V motor on 208 V: T_max falls as V^2 to 0.20 x its rated-voltage value, 2.5 x 0.20 =
     # 0.51 x rated torque, so the motor cannot carry its rating (analytic from the circuit).
     a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="208 V", standard="NEMA"))
-    assert a.stalled
+    assert a.running.operating.stalled
     assert "motor-stall" in codes(a, "problem")
     rated_torque = 50 * 745.6999 / (1775 * math.pi / 30)
-    assert a.breakdown_torque_nm / rated_torque == pytest.approx(2.5 * (208 / 460) ** 2, rel=1e-3)
-    assert a.stall_torque_nm > a.breakdown_torque_nm
+    op = a.running.operating
+    assert op.breakdown_torque_nm / rated_torque == pytest.approx(2.5 * (208 / 460) ** 2, rel=1e-3)
+    assert op.stall_torque_nm > op.breakdown_torque_nm
 
 
 def test_low_breakdown_margin_is_warned():

@@ -9,7 +9,8 @@ from helpers import machine, site
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-from machinecheck.engine.check import VERDICTS, assess
+from machinecheck.engine.assessment import VERDICTS
+from machinecheck.engine.pipeline import assess
 from machinecheck.errors import MachinecheckError
 from machinecheck.inputs.catalog import catalog_from_data, sites_from_data
 from machinecheck.physics import current, speed
@@ -128,7 +129,7 @@ def test_available_output_never_exceeds_rated_times_factors(v, f, altitude, ambi
     a = assess(machine(NEMA_MOTOR), site(voltage=v, frequency=f, altitude=f"{altitude} m",
                                          ambient=f"{ambient} degC", unbalance=f"{unb} %"))
     product = 1.0
-    for value in a.factors.values():
+    for _, value in a.running.derates.factors:
         assert 0 <= value <= 1
         product *= value
     assert a.available_power_w <= a.rated_power_w * product + 1e-6

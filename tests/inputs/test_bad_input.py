@@ -131,7 +131,7 @@ def test_very_long_id_rejected(write):
 
 
 def test_interrupt_leaves_no_output(tmp_path, monkeypatch):
-    import machinecheck.engine.check as engine
+    import machinecheck.engine.pipeline as engine
 
     def interrupted(*args, **kwargs):
         raise KeyboardInterrupt

