@@ -155,11 +155,17 @@ def _figures(a) -> list[tuple[str, str]]:
     return rows
 
 
-def render(assessments, *, explain=False, **_) -> str:
+#: Title of the report, and of the demo's.
+TITLE = "machinecheck report"
+DEMO_TITLE = "machinecheck demo report: an invented fleet against invented sites"
+
+
+def render(assessments, *, explain=False, demo=False, **_) -> str:
+    title = _e(DEMO_TITLE if demo else TITLE)
     out = ['<!DOCTYPE html>', '<html lang="en"><head><meta charset="utf-8">',
            '<meta name="viewport" content="width=device-width, initial-scale=1">',
-           '<title>machinecheck report</title>', f'<style>{_CSS}</style></head><body>',
-           '<h1>machinecheck report</h1>',
+           f'<title>{title}</title>', f'<style>{_CSS}</style></head><body>',
+           f'<h1>{title}</h1>',
            f'<p class="caution">{_e(CAUTION)}</p>']
     counts = summary_counts(assessments)
     out += ['<h2>Summary</h2>', '<table><thead><tr><th>site</th><th>compatible</th>'

@@ -13,8 +13,13 @@ def cell(text) -> str:
     return cleaned.replace("\\", "\\\\").replace("|", "\\|")
 
 
-def render(assessments, *, explain=False, matrix=False, **_) -> str:
-    out = ["# machinecheck report", ""]
+#: Title of the report, and of the demo's.
+TITLE = "machinecheck report"
+DEMO_TITLE = "machinecheck demo report: an invented fleet against invented sites"
+
+
+def render(assessments, *, explain=False, matrix=False, demo=False, **_) -> str:
+    out = [f"# {DEMO_TITLE if demo else TITLE}", ""]
     counts = summary_counts(assessments)
     out += ["| site | compatible | conditional | incompatible |", "|---|---:|---:|---:|"]
     out += [f"| {cell(s)} | {c['compatible']} | {c['conditional']} | {c['incompatible']} |"
