@@ -7,6 +7,10 @@ machine with more than one core, by forked worker processes that share the parse
 sends each rendered chunk back through its own pipe, so the parent reads the chunks in input
 order and writes them as they come: memory stays bounded however large the fleet.
 
+Before forking, the parsed fleet is frozen out of the garbage collector's generations
+(:func:`gc.freeze`, which exists for this): otherwise each worker's collections walk every
+inherited object, copying the parent's pages into the worker one by one.
+
 A worker that dies (killed, out of memory), even in the middle of sending a chunk, closes its
 pipe: the parent sees the end of the pipe at once and stops with a clear error. When the
 parent stops (an error, a signal), it ends every worker and waits for them.
@@ -14,6 +18,7 @@ parent stops (an error, a signal), it ends every worker and waits for them.
 
 from __future__ import annotations
 
+import gc
 import multiprocessing
 import os
 import signal
@@ -121,6 +126,9 @@ class Workers:
         check._rules()
         renderer(job.fmt)
         context = multiprocessing.get_context("fork")
+        # the parsed fleet moves out of the collector's reach: a worker's collections then
+        # never walk (and so never copy) the pages it shares with the parent (see gc.freeze)
+        gc.freeze()
         for std in (sys.stdout, sys.stderr):  # a child must not write the parent's buffer again
             if std is not None:
                 std.flush()
@@ -163,6 +171,7 @@ class Workers:
 
     def close(self) -> None:
         """End every worker still running and wait for it."""
+        gc.unfreeze()
         for reader in self.readers:
             reader.close()
         for process in self.processes:

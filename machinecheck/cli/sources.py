@@ -10,10 +10,12 @@ from __future__ import annotations
 from collections.abc import Iterable, Mapping, Sequence
 from dataclasses import dataclass
 from pathlib import Path
-from typing import Any, TypeVar
+from typing import TYPE_CHECKING, Any, TypeVar
 
 from ..errors import InputError, InputErrors, MachinecheckError
-from ..model import Machine, Site
+
+if TYPE_CHECKING:  # the model is imported by the readers when a check needs it
+    from ..model import Machine, Site
 
 # One-off options -> the catalog/site key they fill, so errors can name the option.
 MACHINE_OPTIONS = {
@@ -199,7 +201,7 @@ def _no_duplicates(machines: Iterable[Machine]) -> None:
         seen[m.id] = m.source
 
 
-Item = TypeVar("Item", Machine, Site)
+Item = TypeVar("Item", "Machine", "Site")
 
 
 def select(items: Sequence[Item], wanted: Sequence[str], what: str) -> tuple[Item, ...]:

@@ -15,9 +15,19 @@ COLUMNS = ("machine", "site", "verdict", "rating_frequency_hz", "rating_voltage_
 SEPARATOR = ""
 
 
-def _safe(value):
-    """Spreadsheet-safe cell: text that a spreadsheet would run as a formula is quoted."""
-    if isinstance(value, str) and value[:1] in ("=", "+", "-", "@"):
+#: First characters with which a spreadsheet starts a formula (or, tab and carriage return,
+#: which some spreadsheets skip before looking for one).
+FORMULA_STARTS = ("=", "+", "-", "@", "\t", "\r")
+
+
+def neutral_cell(value: object) -> object:
+    """A CSV cell a spreadsheet shows as text, never runs as a formula.
+
+    Text starting with one of :data:`FORMULA_STARTS` gets a leading apostrophe (the
+    spreadsheets' own mark for "text"); numbers, None (an empty cell) and other text are kept.
+    Every CSV the project writes passes its cells through this function.
+    """
+    if isinstance(value, str) and value.startswith(FORMULA_STARTS):
         return "'" + value
     return "" if value is None else value
 
@@ -34,7 +44,7 @@ def chunk(assessments, **_) -> str:
     for a in assessments:
         d = result_dict(a)
         codes = ";".join(f"{f['severity']}:{f['code']}" for f in d["findings"])
-        writer.writerow([_safe(x) for x in (
+        writer.writerow([neutral_cell(x) for x in (
             d["machine"], d["site"], d["verdict"], d["rating"]["frequency_hz"],
             d["rating"]["voltage_v"], d["rating"]["connection"], d["synchronous_speed_rpm"],
             d["expected_speed_rpm"], d["rated_power_kw"], d["available_power_kw"],
