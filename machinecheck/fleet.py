@@ -23,7 +23,7 @@ import multiprocessing
 import os
 import signal
 import sys
-from collections.abc import Callable, Iterator, Sequence
+from collections.abc import Callable, Generator, Iterator, Sequence
 from dataclasses import dataclass, field
 from multiprocessing.connection import Connection
 from types import ModuleType
@@ -208,7 +208,7 @@ def _emit(module: ModuleType, results: Iterator[ChunkResult], sizes: Sequence[in
 def stream(machines: Sequence[Machine], sites: Sequence[Site], fmt: str, *, explain: bool = False,
            problems_only: bool = False, tally: Tally,
            progress: Callable[[int], object] | None = None,
-           workers: int | None = None) -> Iterator[bytes]:
+           workers: int | None = None) -> Generator[bytes, None, None]:
     """Yield the report in pieces of UTF-8; ``tally`` is filled as the pieces are made."""
     job = Job(machines, sites, fmt, explain, problems_only)
     bounds = [(i, min(i + CHUNK_MACHINES, len(machines)))

@@ -4,6 +4,8 @@ from __future__ import annotations
 
 import csv
 import io
+from collections.abc import Iterable
+from typing import Any
 
 from ..report import CAUTION
 from ..report.data import result_dict
@@ -32,13 +34,13 @@ def neutral_cell(value: object) -> object:
     return "" if value is None else value
 
 
-def head(**_) -> str:
+def head(**_: Any) -> str:
     buffer = io.StringIO()
     csv.writer(buffer, lineterminator="\n").writerow(COLUMNS)
     return buffer.getvalue()
 
 
-def chunk(assessments, **_) -> str:
+def chunk(assessments: Iterable[Any], **_: Any) -> str:
     buffer = io.StringIO()
     writer = csv.writer(buffer, lineterminator="\n")
     for a in assessments:
@@ -53,20 +55,20 @@ def chunk(assessments, **_) -> str:
     return buffer.getvalue()
 
 
-def chunk_bytes(assessments, **options) -> bytes:
+def chunk_bytes(assessments: Iterable[Any], **options: Any) -> bytes:
     return chunk(assessments, **options).encode()
 
 
-def join(chunks) -> str:
+def join(chunks: Iterable[str]) -> str:
     return "".join(chunks)
 
 
-def tail(**_) -> str:
+def tail(**_: Any) -> str:
     """The caution as a last row, first cell, where a spreadsheet shows it."""
     buffer = io.StringIO()
     csv.writer(buffer, lineterminator="\n").writerow([CAUTION] + [""] * (len(COLUMNS) - 1))
     return buffer.getvalue()
 
 
-def render(assessments, **_) -> str:
+def render(assessments: Iterable[Any], **_: Any) -> str:
     return head() + chunk(assessments) + tail()

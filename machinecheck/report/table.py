@@ -9,6 +9,8 @@ from __future__ import annotations
 
 import io
 import os
+from collections.abc import Sequence
+from typing import Any
 
 from ..report import CAUTION
 from ..report.data import by_site, driving_findings, number, output_text, summary_counts, worst_first
@@ -33,8 +35,9 @@ def _safe(text: object, limit: int = 400) -> str:
     return cleaned if len(cleaned) <= limit else cleaned[: limit - 1] + "…"
 
 
-def render(assessments, *, explain=False, matrix=False, width=None, color=None, demo=False,
-           **_) -> str:
+def render(assessments: Sequence[Any], *, explain: bool = False, matrix: bool = False,
+           width: int | None = None, color: bool | None = None, demo: bool = False,
+           **_: Any) -> str:
     """The report as text; ``width`` None: the plain layout (no terminal)."""
     from rich import box
     from rich.console import Console
@@ -82,7 +85,7 @@ def render(assessments, *, explain=False, matrix=False, width=None, color=None, 
             if a.machine.is_generator and a.available_apparent_power_va is not None:
                 output = (f"{a.available_apparent_power_va / 1000:.0f} / "
                           f"{a.rated_apparent_power_va / 1000:.0f} kVA")
-            cells = [Text(_safe(a.machine.id)), Text(_MARK[a.verdict], style=_STYLE[a.verdict]),
+            cells: list[Text | str] = [Text(_safe(a.machine.id)), Text(_MARK[a.verdict], style=_STYLE[a.verdict]),
                      f"{a.synchronous_speed_rpm:.0f}", speed, output,
                      number(a.full_load_current_a, ".1f"), number(a.operating_current_a, ".1f")]
             if beside:

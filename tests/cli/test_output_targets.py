@@ -110,7 +110,8 @@ def test_a_missing_folder_is_not_created(tmp_path):
 
 def test_an_input_file_is_never_the_output(tmp_path):
     catalog = tmp_path / "fleet.toml"
-    catalog.write_text(open(DEMO_FLEET, encoding="utf-8").read(), encoding="utf-8")
+    with open(DEMO_FLEET, encoding="utf-8") as handle:
+        catalog.write_text(handle.read(), encoding="utf-8")
     before = catalog.read_bytes()
     result = run("check", str(catalog), "--sites", DEMO_SITES, "-o", str(catalog),
                  "--format", "table")
