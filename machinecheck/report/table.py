@@ -85,14 +85,15 @@ def render(assessments: Sequence[Any], *, explain: bool = False, matrix: bool = 
             if a.machine.is_generator and a.available_apparent_power_va is not None:
                 output = (f"{a.available_apparent_power_va / 1000:.0f} / "
                           f"{a.rated_apparent_power_va / 1000:.0f} kVA")
-            cells: list[Text | str] = [Text(_safe(a.machine.id)), Text(_MARK[a.verdict], style=_STYLE[a.verdict]),
-                     f"{a.synchronous_speed_rpm:.0f}", speed, output,
-                     number(a.full_load_current_a, ".1f"), number(a.operating_current_a, ".1f")]
+            row: list[Text | str] = [
+                Text(_safe(a.machine.id)), Text(_MARK[a.verdict], style=_STYLE[a.verdict]),
+                f"{a.synchronous_speed_rpm:.0f}", speed, output,
+                number(a.full_load_current_a, ".1f"), number(a.operating_current_a, ".1f")]
             if beside:
-                cells.append(Text(_safe("\n".join(lines), 4000)))
+                row.append(Text(_safe("\n".join(lines), 4000)))
             else:
                 below.append((a, lines))
-            table.add_row(*cells)
+            table.add_row(*row)
         console.print(table)
         for a, lines in below:
             if plain:  # one line a finding, each naming its pair: grep finds them all
