@@ -122,7 +122,9 @@ def check(catalogs: tuple[str, ...], sites_file: str | None, site_ids: tuple[str
     given = load_inputs(catalogs, sites_file, values)
     machines = select(given.machines, machine_ids, "machine")
     sites = select(given.sites, site_ids, "site")
-    inputs = [*given.files, *(m.source for m in machines), *(s.source for s in sites)]
+    # the files read (each once: a fleet's machines share their catalog's name)
+    inputs = list(dict.fromkeys([*given.files, *(m.source for m in machines),
+                                 *(s.source for s in sites)]))
     to_terminal = output in (None, STDOUT) and sys.stdout is not None and sys.stdout.isatty()
     with _progress(len(machines), len(machines) * len(sites) > PROGRESS_PAIRS) as bar:
         from ..fleet import Tally
