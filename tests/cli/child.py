@@ -6,7 +6,11 @@ import os
 import subprocess
 import sys
 
+import machinecheck
+
 ROOT = os.path.dirname(os.path.dirname(os.path.dirname(os.path.abspath(__file__))))
+#: Where the package under test is imported from: the child runs the same one.
+PACKAGE_PARENT = os.path.dirname(os.path.dirname(os.path.abspath(machinecheck.__file__)))
 DEMO_FLEET = os.path.join(ROOT, "catalogs", "fleet.toml")
 DEMO_SITES = os.path.join(ROOT, "catalogs", "sites.toml")
 
@@ -29,7 +33,7 @@ SLOW_CHECK = (
 
 
 def environment(**extra: str) -> dict[str, str]:
-    env = {**os.environ, "NO_COLOR": "1", "PYTHONPATH": ROOT, "MACHINECHECK_CACHE": ""}
+    env = {**os.environ, "NO_COLOR": "1", "PYTHONPATH": PACKAGE_PARENT, "MACHINECHECK_CACHE": ""}
     env.pop("COLUMNS", None)
     env.update(extra)
     return env

@@ -117,3 +117,21 @@ def test_a_fifo_in_the_state_folders_never_blocks(tmp_path):
     env.pop("MACHINECHECK_CACHE")
     assert run("check", env=env, timeout=30).returncode == 1
     assert run(*LOOKUP, env=env, timeout=30).returncode == 0
+
+
+def test_a_closed_standard_output_does_not_stop_a_report_to_a_file(tmp_path):
+    target = tmp_path / "report.json"
+    proc = subprocess.run(command("check", "-o", str(target)), env=environment(),
+                          stdout=subprocess.DEVNULL, stderr=subprocess.PIPE, text=True,
+                          timeout=60, preexec_fn=lambda: os.close(1))
+    assert proc.returncode == 1, proc.stderr
+    assert target.read_text(encoding="utf-8").startswith("{")
+
+
+def test_deeply_nested_input_is_one_line_not_a_traceback(tmp_path):
+    deep = tmp_path / "deep.toml"
+    deep.write_text("a = " + "[" * 5000 + "1" + "]" * 5000 + "\n")
+    result = run("validate", str(deep))
+    assert result.returncode == 2
+    assert len(result.stderr.strip().splitlines()) == 1 and "Traceback" not in result.stderr
+    assert "nested" in result.stderr
