@@ -61,8 +61,10 @@ def render(assessments: Sequence[Any], *, explain: bool = False, matrix: bool = 
         title = (f"{_safe(s.id)} - {_safe(s.name)}: " if s.name else f"{_safe(s.id)}: ")
         title += (f"{s.voltage_v:g} V {s.frequency_hz:g} Hz, {s.phases} phase"
                   f"{'s' if s.phases > 1 else ''}, {s.standard}")
-        table = Table(title=title, title_justify="left", show_lines=beside, expand=False,
-                      box=frame)
+        if plain:  # the site's line whole, however narrow its table
+            console.print(Text(title), soft_wrap=True)
+        table = Table(title=None if plain else title, title_justify="left", show_lines=beside,
+                      expand=False, box=frame)
         table.add_column("machine", overflow="fold", max_width=16)
         table.add_column("verdict", no_wrap=True, min_width=12)
         table.add_column("n_s rpm", justify="right")
