@@ -62,11 +62,11 @@ def test_the_table_and_the_working_show_escapes_visibly(catalog, extra):
         assert "connection =1+2\\x1b[2J at 400 V" in result.output
 
 
-def _on_a_terminal(args):
+def _on_a_terminal(args, env=None):
     """Run with standard output on a pseudo-terminal; what the terminal received."""
     main_fd, terminal_fd = os.openpty()
     try:
-        proc = subprocess.Popen(command(*args), env=environment(), stdout=terminal_fd,
+        proc = subprocess.Popen(command(*args), env=environment(**(env or {})), stdout=terminal_fd,
                                 stderr=subprocess.DEVNULL)
         os.close(terminal_fd)  # read while it writes: a terminal's buffer is small
         received = b""
@@ -150,3 +150,12 @@ def test_an_8_bit_control_json_leaves_raw_is_made_visible_on_a_terminal(write):
     assert code == 0
     _no_raw_controls(shown)
     assert '"connection":"star\\x9b2J"' in shown
+
+
+@pytest.mark.skipif(not hasattr(os, "openpty"), reason="no pseudo-terminals on this platform")
+def test_the_table_takes_the_terminals_width():
+    code, shown = _on_a_terminal(["check"], env={"COLUMNS": "72"})
+    assert code == 1
+    lines = shown.splitlines()
+    assert max(len(line) for line in lines) <= 72
+    assert any("━" in line or "─" in line for line in lines)  # a terminal's table, not the plain one
