@@ -69,8 +69,14 @@ def fail(errors: Iterable[object]) -> None:
 def _silence_stdout() -> None:
     """Point standard output at /dev/null, so the interpreter's final flush cannot fail."""
     try:
+        descriptor = sys.stdout.fileno() if sys.stdout is not None else -1
+    except (OSError, ValueError):  # an in-memory stream (tests): nothing to silence
+        return
+    if descriptor < 0:
+        return
+    try:
         null = os.open(os.devnull, os.O_WRONLY)
-        os.dup2(null, 1)
+        os.dup2(null, descriptor)
         os.close(null)
     except OSError:
         pass
