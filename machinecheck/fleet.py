@@ -41,6 +41,9 @@ PARALLEL_PAIRS = 6000
 #: How long an ended worker is given to exit before it is killed [s].
 WORKER_GRACE_S = 2.0
 
+#: The signals that stop a run (the parent's handlers end the workers).
+_STOP_SIGNALS = {signal.SIGTERM, signal.SIGHUP, signal.SIGINT}
+
 #: One chunk's result: the rendered UTF-8 text, the verdict counts, the number of pairs shown.
 ChunkResult = tuple[bytes, dict[str, int], int]
 
@@ -102,9 +105,12 @@ def workers_available() -> int:
 def _worker(job: Job, bounds: Sequence[tuple[int, int]], sender: Connection,
             others: Sequence[Connection]) -> None:
     """A forked worker: check its chunks in order and send each one back."""
+    # born with the stop signals blocked (see Workers): the parent's handlers are replaced
+    # before any can arrive
     signal.signal(signal.SIGINT, signal.SIG_IGN)  # Ctrl-C: the parent stops the run
     for signum in (signal.SIGTERM, signal.SIGHUP):
         signal.signal(signum, signal.SIG_DFL)
+    signal.pthread_sigmask(signal.SIG_UNBLOCK, _STOP_SIGNALS)
     for connection in others:  # so that the parent's death closes every pipe to it
         connection.close()
     try:
@@ -142,7 +148,13 @@ class Workers:
                 process = context.Process(
                     target=_worker, name=f"machinecheck-worker-{index}", daemon=True,
                     args=(job, bounds[index::self.count], sender, list(self.readers)))
-                process.start()
+                # a stop signal between the fork and the worker's own handlers would run the
+                # parent's handler in the worker: blocked until the worker has replaced them
+                mask = signal.pthread_sigmask(signal.SIG_BLOCK, _STOP_SIGNALS)
+                try:
+                    process.start()
+                finally:
+                    signal.pthread_sigmask(signal.SIG_SETMASK, mask)
                 sender.close()
                 self.readers.append(reader)
                 self.processes.append(process)
