@@ -159,3 +159,10 @@ def test_the_table_takes_the_terminals_width():
     lines = shown.splitlines()
     assert max(len(line) for line in lines) <= 72
     assert any("━" in line or "─" in line for line in lines)  # a terminal's table, not the plain one
+
+
+def test_a_usage_error_shows_the_users_text_visibly():
+    result = _run("check", "--format", "x\x1b[2J")
+    assert result.exit_code == 2
+    _no_raw_controls(result.output)
+    assert "'x\\x1b[2J' is not one of" in result.output
