@@ -18,6 +18,7 @@ parent stops (an error, a signal), it ends every worker and waits for them.
 
 from __future__ import annotations
 
+import contextlib
 import gc
 import multiprocessing
 import os
@@ -118,6 +119,9 @@ def _worker(job: Job, bounds: Sequence[tuple[int, int]], sender: Connection,
             sender.send(check_chunk(job, start, stop))
     except (BrokenPipeError, ConnectionResetError):  # the parent has gone: stop quietly
         pass
+    except Exception as exc:  # the parent raises it, as the one process would have
+        with contextlib.suppress(Exception):
+            sender.send(exc)
     finally:
         sender.close()
 
@@ -166,9 +170,11 @@ class Workers:
         for index in range(len(self.bounds)):
             worker = index % self.count
             try:
-                result: ChunkResult = self.readers[worker].recv()
+                result: ChunkResult | Exception = self.readers[worker].recv()
             except (EOFError, OSError):
                 raise self._died(worker) from None
+            if isinstance(result, Exception):
+                raise result
             yield result
 
     def _died(self, worker: int) -> MachinecheckError:
@@ -178,7 +184,7 @@ class Workers:
         how = (f"was killed by {signal.Signals(-code).name}" if code is not None and code < 0
                else f"ended with status {code}" if code is not None else "closed its pipe")
         return MachinecheckError(f"a worker process {how} before sending all its results (out "
-                                 "of memory?); the report was not written; try again, or split "
+                                 "of memory?); the report was not finished; try again, or split "
                                  "the catalog")
 
     def close(self) -> None:

@@ -127,3 +127,16 @@ def test_small_fleets_stay_in_one_process(monkeypatch):
     machines, sites = _demo()
     text = b"".join(runner.stream(machines, sites, "json", tally=runner.Tally(), workers=8))
     assert len(json.loads(text)["results"]) == len(machines) * len(sites)
+
+
+def _refuses(job, start, stop):
+    raise MachinecheckError(f"chunk {start}-{stop} cannot be checked")
+
+
+@pytest.mark.skipif(not hasattr(os, "fork"), reason="the workers are forked; no fork here")
+def test_an_error_in_a_worker_is_raised_by_the_parent_as_one_process_would(small_chunks,
+                                                                          monkeypatch):
+    monkeypatch.setattr(runner, "check_chunk", _refuses)
+    machines, sites = _demo()
+    with pytest.raises(MachinecheckError, match="chunk 0-3 cannot be checked"):
+        b"".join(runner.stream(machines, sites, "json", tally=runner.Tally(), workers=2))
