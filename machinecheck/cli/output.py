@@ -1,6 +1,6 @@
 """The one place that writes a report.
 
-- ``-`` (or no ``--output``) is standard output. Shown on a terminal, the text is made visible
+- ``-`` (or no ``--output``) is standard output, and so is a name of it (``/dev/stdout``). Shown on a terminal, the text is made visible
   first (:func:`machinecheck.report.text.visible_lines`); a pipe or a redirected file gets the
   raw document.
 - A regular file (or a new name in an existing folder) is written atomically: a private
@@ -75,7 +75,7 @@ def write_report(pieces: Pieces, target: str | None, inputs: Iterable[str | None
     ``sanitised``: the renderer has already made every user string visible (the terminal
     table, whose colours must reach the terminal).
     """
-    if target is None or target == STDOUT:
+    if target is None or target == STDOUT or _is_stdout(target):
         write_stdout(pieces, sanitised=sanitised)
         return
     kind = _target_kind(target, [i for i in inputs if i])
@@ -100,6 +100,18 @@ def write_stdout(pieces: Pieces, *, sanitised: bool = False) -> None:
         raise  # the reader has gone: the command ends quietly
     except OSError as exc:
         raise describe(exc, STANDARD_OUTPUT) from None
+
+
+def _is_stdout(target: str) -> bool:
+    """Whether ``target`` names this process's standard output (``/dev/stdout``, ``/dev/fd/1``):
+    written as ``-``, so a redirection's file is neither replaced nor rewound."""
+    if sys.stdout is None:
+        return False
+    try:
+        ours, named = os.fstat(sys.stdout.fileno()), os.stat(target)
+    except (OSError, ValueError):
+        return False
+    return (ours.st_dev, ours.st_ino) == (named.st_dev, named.st_ino)
 
 
 def plain_ascii_fallback() -> None:

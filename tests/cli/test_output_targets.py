@@ -151,3 +151,16 @@ def test_a_format_contradicting_the_extension_is_refused(tmp_path):
     assert result.returncode == 2
     assert "contradicts the file name" in result.stderr
     assert os.listdir(tmp_path) == []
+
+
+@pytest.mark.skipif(not os.path.exists("/dev/stdout"), reason="no /dev/stdout here")
+def test_dev_stdout_redirected_to_a_file_is_written_as_standard_output(tmp_path):
+    redirected = tmp_path / "log.txt"
+    redirected.write_text("first line\n")
+    before = os.lstat("/dev/stdout")
+    with open(redirected, "a") as handle:  # as `>> log.txt`
+        result = run("check", "--format", "json", "-o", "/dev/stdout", stdout=handle)
+    assert result.returncode == 1, result.stderr
+    first, document = redirected.read_text().split("\n", 1)
+    assert first == "first line" and len(json.loads(document)["results"]) == 48
+    _unchanged("/dev/stdout", before)
