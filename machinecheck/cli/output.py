@@ -1,8 +1,9 @@
 """The one place that writes a report.
 
-- ``-`` (or no ``--output``) is standard output, and so is a name of it (``/dev/stdout``). Shown on a terminal, the text is made visible
-  first (:func:`machinecheck.report.text.visible_lines`); a pipe or a redirected file gets the
-  raw document.
+- ``-`` (or no ``--output``) is standard output, and so is a name of it (``/dev/stdout``).
+  Shown on a terminal, the text is made visible first
+  (:func:`machinecheck.report.text.visible_lines`); a pipe or a redirected file gets the raw
+  document.
 - A regular file (or a new name in an existing folder) is written atomically: a private
   temporary file in the same folder, renamed over the target when complete. On any error or
   signal the temporary file is removed and the target is as it was.
