@@ -1,157 +1,100 @@
-"""Run the check engine over a fleet and render a streamed format (JSON, CSV) chunk by chunk.
+"""Check a fleet and render a streamed format (JSON, CSV) chunk by chunk, in input order.
 
-Results are rendered and dropped as they are made, so memory stays flat however large the
-fleet; on a machine with more than one core, large fleets are split over worker processes
-(forked, so they share the validated catalog), and the chunks come back in input order.
+The catalog is parsed and validated once, in the calling process. The pairs are then checked
+in chunks of :data:`CHUNK_MACHINES` machines: in the calling process for a small fleet, or, on a
+machine with more than one core, by forked worker processes that share the parsed machines
+(nothing is sent to them). Worker ``w`` of ``n`` takes chunks ``w, w + n, w + 2n ...`` and
+sends each rendered chunk back through its own pipe, so the parent reads the chunks in input
+order and writes them as they come: memory stays bounded however large the fleet.
 
-When the report goes to a file, a large TOML catalog can go to the workers unparsed: its text is
-cut before ``[[machine]]`` headers and each worker parses, validates and checks its own piece.
-Anything a piece cannot settle alone (a syntax or validation error, a duplicate id, a table
-that is not a machine) raises :class:`Redo`, and the caller loads the catalog whole, which
-reports it exactly as usual; the output file is written atomically, so nothing is left of the
-first attempt.
+Before forking, the parsed fleet is frozen out of the garbage collector's generations
+(:func:`gc.freeze`, which exists for this): otherwise each worker's collections walk every
+inherited object, copying the parent's pages into the worker one by one.
+
+A worker that dies (killed, out of memory), even in the middle of sending a chunk, closes its
+pipe: the parent sees the end of the pipe at once and stops with a clear error. When the
+parent stops (an error, a signal), it ends every worker and waits for them.
 """
 
 from __future__ import annotations
 
+import contextlib
+import gc
 import multiprocessing
 import os
-import re
+import signal
 import sys
+from collections.abc import Callable, Generator, Iterator, Sequence
 from dataclasses import dataclass, field
+from multiprocessing.connection import Connection
+from types import ModuleType
+from typing import Any
 
 from .engine.assessment import VERDICTS
+from .errors import MachinecheckError
+from .model import Machine, Site
 from .report import renderer
-
-try:
-    import rtoml
-except ImportError:  # pragma: no cover - a platform without its wheel: tomllib alone
-    rtoml = None
 
 #: Machines per chunk of work.
 CHUNK_MACHINES = 100
-#: Fewer pairs than this are checked in the calling process (workers cost ~50 ms to start).
+#: Fewer pairs than this are checked in the calling process (starting workers costs ~50 ms).
 PARALLEL_PAIRS = 6000
+#: How long an ended worker is given to exit before it is killed [s].
+WORKER_GRACE_S = 2.0
 
-_JOB: tuple | None = None  # (machines, sites, fmt, explain, problems_only), read by workers
-_TEXT_JOB: tuple | None = None  # (plans, sites, fmt, explain, problems_only), read by workers
+#: The signals that stop a run (the parent's handlers end the workers).
+_STOP_SIGNALS = {signal.SIGTERM, signal.SIGHUP, signal.SIGINT}
 
-#: A line that starts a machine table: the only places a catalog's text is cut.
-_MACHINE_HEADER = re.compile(r"^\[\[[ \t]*machine[ \t]*\]\][ \t]*(#.*)?$", re.M)
-
-
-class Redo(Exception):
-    """A piece of a catalog needs the whole file to be judged: load it whole instead."""
+#: One chunk's result: the rendered UTF-8 text, the verdict counts, the number of pairs shown.
+ChunkResult = tuple[bytes, dict[str, int], int]
 
 
-@dataclass
-class FilePlan:
-    """A catalog's text and where it is cut: (start, stop, machines) per piece."""
+@dataclass(frozen=True)
+class Job:
+    """What every chunk is checked with (shared with forked workers, never sent)."""
 
-    name: str
-    text: str
-    pieces: list
-
-    @property
-    def machines(self) -> int:
-        return sum(count for _, _, count in self.pieces)
+    machines: Sequence[Machine]
+    sites: Sequence[Site]
+    fmt: str
+    explain: bool = False
+    problems_only: bool = False
 
 
 @dataclass
 class Tally:
     """Verdict counts of every pair checked, and the number of pairs rendered."""
 
-    counts: dict = field(default_factory=lambda: dict.fromkeys(VERDICTS, 0))
+    counts: dict[str, int] = field(default_factory=lambda: dict.fromkeys(VERDICTS, 0))
     shown: int = 0
 
-    def add(self, counts: dict, shown: int) -> None:
+    def add(self, counts: dict[str, int], shown: int) -> None:
         for verdict, number in counts.items():
             self.counts[verdict] += number
         self.shown += shown
 
     @classmethod
-    def of(cls, results, problems_only: bool):
+    def of(cls, results: Sequence[Any], problems_only: bool) -> tuple[Tally, list[Any]]:
         """The tally of checked pairs, and the pairs to render."""
         tally = cls()
         for a in results:
             tally.counts[a.verdict] += 1
-        shown = [a for a in results if a.verdict != "compatible"] if problems_only else results
+        shown = [a for a in results if a.verdict != "compatible"] if problems_only else list(results)
         tally.shown = len(shown)
         return tally, shown
 
 
-def _work(bounds):
-    """Check machines[start:stop] against every site; return (text, counts, shown)."""
-    machines, sites, fmt, explain, problems_only = _JOB
-    start, stop = bounds
-    return _checked(machines[start:stop], sites, fmt, explain, problems_only)
-
-
-def _work_text(job):
-    """Parse, validate and check one piece of a catalog's text; None when it needs the whole."""
-    from .errors import MachinecheckError
-    from .inputs.catalog import catalog_from_data
-
-    plans, sites, fmt, explain, problems_only = _TEXT_JOB
-    index, start, stop = job
-    plan = plans[index]
-    piece = plan.text[start:stop]
-    data = parse_piece(piece)
-    if data is None:
-        return None
-    allowed = ("catalog", "machine") if start == 0 else ("machine",)
-    if not isinstance(data.get("machine"), list) or any(key not in allowed for key in data):
-        return None
-    try:
-        machines = catalog_from_data(data, plan.name, piece).machines
-    except MachinecheckError:
-        return None
-    return (*_checked(machines, sites, fmt, explain, problems_only),
-            [m.id for m in machines])
-
-
-#: What TOML 1.1 reads and TOML 1.0 (tomllib) does not: inline tables (1.1 lets them span
-#: lines and end in a comma), a BOM, the \e and \x escapes, times without seconds.
-_ESCAPE_1_1 = re.compile(r"\\[ex]")
-_SHORT_TIME = re.compile(r"(?<![:\d])\d\d:\d\d(?![:\d])")
-
-
-def _beyond_toml_1_0(text: str) -> bool:
-    # substring tests first: the regular expressions run only on texts that could match
-    return ("{" in text or "\ufeff" in text
-            or ("\\" in text and _ESCAPE_1_1.search(text) is not None)
-            or (":" in text and _SHORT_TIME.search(text) is not None))
-
-
-def parse_piece(text: str) -> dict | None:
-    """A piece of catalog as tomllib reads it, or None where tomllib finds an error.
-
-    rtoml (TOML 1.1) parses about three times faster than tomllib (TOML 1.0), and the two
-    agree on TOML 1.0 documents; a piece showing anything only 1.1 reads goes to tomllib, so a
-    catalog is accepted here exactly when the whole load would accept it.
-    """
-    from .inputs.catalog import tomllib
-
-    if rtoml is not None and not _beyond_toml_1_0(text):
-        try:
-            return rtoml.loads(text)
-        except Exception:  # any complaint: the whole load names it in tomllib's words
-            return None
-    try:
-        return tomllib.loads(text)
-    except tomllib.TOMLDecodeError:
-        return None
-
-
-def _checked(machines, sites, fmt, explain, problems_only):
+def check_chunk(job: Job, start: int, stop: int) -> ChunkResult:
+    """Check machines[start:stop] against every site and render them."""
     from .engine.pipeline import assess_all
 
-    tally, shown = Tally.of(assess_all(machines, sites, explain=explain), problems_only)
-    # bytes: a worker's text crosses the pipe and reaches the file without re-encoding
-    return renderer(fmt).chunk_bytes(shown, explain=explain), tally.counts, tally.shown
+    results = assess_all(job.machines[start:stop], job.sites, explain=job.explain)
+    tally, shown = Tally.of(results, job.problems_only)
+    module = renderer(job.fmt)
+    return module.chunk_bytes(shown, explain=job.explain), tally.counts, tally.shown
 
 
 def workers_available() -> int:
+    """Worker processes worth starting: the usable cores where fork exists, else 1."""
     try:
         cores = len(os.sched_getaffinity(0))
     except AttributeError:  # pragma: no cover - not Linux
@@ -160,47 +103,111 @@ def workers_available() -> int:
     return cores if fork else 1
 
 
-class _Workers:
-    """Forked worker processes mapping a function over jobs, results in job order.
+def _worker(job: Job, bounds: Sequence[tuple[int, int]], sender: Connection,
+            others: Sequence[Connection]) -> None:
+    """A forked worker: check its chunks in order and send each one back."""
+    # born with the stop signals blocked (see Workers): the parent's handlers are replaced
+    # before any can arrive
+    signal.signal(signal.SIGINT, signal.SIG_IGN)  # Ctrl-C: the parent stops the run
+    for signum in (signal.SIGTERM, signal.SIGHUP):
+        signal.signal(signum, signal.SIG_DFL)
+    signal.pthread_sigmask(signal.SIG_UNBLOCK, _STOP_SIGNALS)
+    for connection in others:  # so that the parent's death closes every pipe to it
+        connection.close()
+    try:
+        for start, stop in bounds:
+            sender.send(check_chunk(job, start, stop))
+    except (BrokenPipeError, ConnectionResetError):  # the parent has gone: stop quietly
+        pass
+    except Exception as exc:  # the parent raises it, as the one process would have
+        with contextlib.suppress(Exception):
+            sender.send(exc)
+    finally:
+        sender.close()
 
-    A worker that dies (killed, out of memory) ends the run with a clear error, not a hang.
-    """
 
-    def __init__(self, workers: int, jobs: int):
-        from concurrent.futures import ProcessPoolExecutor
+class Workers:
+    """Forked workers over the chunks of a job; :meth:`results` yields them in chunk order."""
 
-        # import what the workers run before forking, so each does not import it again
-        from . import rules  # noqa: F401
+    def __init__(self, job: Job, bounds: Sequence[tuple[int, int]], workers: int):
+        # import what the workers run before forking, so that none imports it again
         from .engine import pipeline  # noqa: F401
-        from .inputs import catalog  # noqa: F401
 
-        self._executor = ProcessPoolExecutor(min(workers, jobs),
-                                             mp_context=multiprocessing.get_context("fork"))
-
-    def map(self, function, jobs):
-        from concurrent.futures.process import BrokenProcessPool
-
-        from .errors import MachinecheckError
-
+        renderer(job.fmt)
+        context = multiprocessing.get_context("fork")
+        # the parsed fleet moves out of the collector's reach: a worker's collections then
+        # never walk (and so never copy) the pages it shares with the parent (see gc.freeze)
+        gc.freeze()
+        for std in (sys.stdout, sys.stderr):  # a child must not write the parent's buffer again
+            if std is not None:
+                std.flush()
+        self.count = min(workers, len(bounds))
+        self.bounds = bounds
+        self.readers: list[Connection] = []
+        self.processes: list[Any] = []
         try:
-            yield from self._executor.map(function, jobs)
-        except BrokenProcessPool:
-            raise MachinecheckError("a worker process ended unexpectedly (out of memory?): "
-                                    "the report was not finished; try again, or split the catalog") from None
+            for index in range(self.count):
+                reader, sender = context.Pipe(duplex=False)
+                process = context.Process(
+                    target=_worker, name=f"machinecheck-worker-{index}", daemon=True,
+                    args=(job, bounds[index::self.count], sender, list(self.readers)))
+                # a stop signal between the fork and the worker's own handlers would run the
+                # parent's handler in the worker: blocked until the worker has replaced them
+                mask = signal.pthread_sigmask(signal.SIG_BLOCK, _STOP_SIGNALS)
+                try:
+                    process.start()
+                finally:
+                    signal.pthread_sigmask(signal.SIG_SETMASK, mask)
+                sender.close()
+                self.readers.append(reader)
+                self.processes.append(process)
+        except BaseException:
+            self.close()
+            raise
+
+    def results(self) -> Iterator[ChunkResult]:
+        for index in range(len(self.bounds)):
+            worker = index % self.count
+            try:
+                result: ChunkResult | Exception = self.readers[worker].recv()
+            except (EOFError, OSError):
+                raise self._died(worker) from None
+            if isinstance(result, Exception):
+                raise result
+            yield result
+
+    def _died(self, worker: int) -> MachinecheckError:
+        process = self.processes[worker]
+        process.join(WORKER_GRACE_S)
+        code = process.exitcode
+        how = (f"was killed by {signal.Signals(-code).name}" if code is not None and code < 0
+               else f"ended with status {code}" if code is not None else "closed its pipe")
+        return MachinecheckError(f"a worker process {how} before sending all its results (out "
+                                 "of memory?); the report was not finished; try again, or split "
+                                 "the catalog")
 
     def close(self) -> None:
-        self._executor.shutdown(wait=True, cancel_futures=True)
+        """End every worker still running and wait for it."""
+        gc.unfreeze()
+        for reader in self.readers:
+            reader.close()
+        for process in self.processes:
+            if process.is_alive():
+                process.terminate()
+        for process in self.processes:
+            process.join(WORKER_GRACE_S)
+            if process.is_alive():
+                process.kill()
+                process.join()
 
 
-def _emit(module, results, sizes, tally: Tally, progress, on_result=None):
-    """Yield the document, UTF-8, from ordered chunk results; ``tally`` is filled as they come."""
+def _emit(module: ModuleType, results: Iterator[ChunkResult], sizes: Sequence[int],
+          tally: Tally, progress: Callable[[int], object] | None) -> Iterator[bytes]:
+    """The document, UTF-8, from ordered chunk results; ``tally`` is filled as they come."""
     yield module.head().encode()
     separator = module.SEPARATOR.encode()
     first = True
-    for size, result in zip(sizes, results):
-        if on_result is not None:
-            on_result(result)
-        text, counts, shown = result[:3]
+    for size, (text, counts, shown) in zip(sizes, results):
         tally.add(counts, shown)
         if progress is not None:
             progress(size)
@@ -215,79 +222,21 @@ def _emit(module, results, sizes, tally: Tally, progress, on_result=None):
     yield module.tail().encode()
 
 
-def stream(machines, sites, fmt, *, explain=False, problems_only=False, tally: Tally,
-           progress=None, workers: int | None = None):
+def stream(machines: Sequence[Machine], sites: Sequence[Site], fmt: str, *, explain: bool = False,
+           problems_only: bool = False, tally: Tally,
+           progress: Callable[[int], object] | None = None,
+           workers: int | None = None) -> Generator[bytes, None, None]:
     """Yield the report in pieces of UTF-8; ``tally`` is filled as the pieces are made."""
-    global _JOB
+    job = Job(machines, sites, fmt, explain, problems_only)
     bounds = [(i, min(i + CHUNK_MACHINES, len(machines)))
               for i in range(0, len(machines), CHUNK_MACHINES)]
     workers = workers_available() if workers is None else workers
     parallel = workers > 1 and len(machines) * len(sites) >= PARALLEL_PAIRS and len(bounds) > 1
-    _JOB = (machines, sites, fmt, explain, problems_only)
-    pool = None
+    pool = Workers(job, bounds, workers) if parallel else None
     try:
-        if parallel:
-            pool = _Workers(workers, len(bounds))
-            results = pool.map(_work, bounds)
-        else:
-            results = map(_work, bounds)
+        results = (pool.results() if pool is not None
+                   else (check_chunk(job, start, stop) for start, stop in bounds))
         yield from _emit(renderer(fmt), results, [b - a for a, b in bounds], tally, progress)
     finally:
         if pool is not None:
             pool.close()
-        _JOB = None
-
-
-def machine_header_starts(text: str) -> list[int]:
-    """Offsets of the lines that start a machine table (as ``_MACHINE_HEADER`` finds them).
-
-    Only lines that begin with "[[" are tried, and a plain header needs no expression: str.find
-    skips the rest several times faster than the expression scanning every line.
-    """
-    match, plain = _MACHINE_HEADER.match, text.startswith
-    starts = [0] if match(text, 0) else []
-    at = text.find("\n[[")
-    while at >= 0:
-        if plain("[[machine]]\n", at + 1) or match(text, at + 1):
-            starts.append(at + 1)
-        at = text.find("\n[[", at + 3)
-    return starts
-
-
-def plan_file(name: str, text: str) -> FilePlan | None:
-    """Where to cut a TOML catalog into pieces of about CHUNK_MACHINES machines; None if unsafe.
-
-    Cutting is safe when no multi-line string could hold a line that looks like a header.
-    """
-    if '"""' in text or "'''" in text:
-        return None
-    starts = machine_header_starts(text)
-    if len(starts) < 2:
-        return None
-    firsts = range(0, len(starts), CHUNK_MACHINES)  # index of each piece's first machine
-    cuts = [0] + [starts[i] for i in firsts[1:]] + [len(text)]
-    return FilePlan(name=name, text=text, pieces=[
-        (cuts[n], cuts[n + 1], min(CHUNK_MACHINES, len(starts) - i)) for n, i in enumerate(firsts)])
-
-
-def stream_files(plans, sites, fmt, *, explain=False, problems_only=False, tally: Tally,
-                 progress=None, workers: int):
-    """As :func:`stream`, from catalog texts cut by :func:`plan_file`; raises Redo."""
-    global _TEXT_JOB
-    jobs = [(i, start, stop) for i, plan in enumerate(plans) for start, stop, _ in plan.pieces]
-    sizes = [count for plan in plans for _, _, count in plan.pieces]
-    seen: set = set()
-
-    def check_piece(result):
-        if result is None or not seen.isdisjoint(result[3]):
-            raise Redo  # a piece's problem, or an id another piece has: the whole load names it
-        seen.update(result[3])
-
-    _TEXT_JOB = (plans, sites, fmt, explain, problems_only)
-    pool = _Workers(workers, len(jobs))
-    try:
-        yield from _emit(renderer(fmt), pool.map(_work_text, jobs), sizes, tally, progress,
-                         on_result=check_piece)
-    finally:
-        pool.close()
-        _TEXT_JOB = None

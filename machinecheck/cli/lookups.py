@@ -1,32 +1,38 @@
 """Plant-floor lookups (speed, poles, current): option texts in, report lines out.
 
-Kept free of click so that :mod:`machinecheck.entry` can answer a plain lookup without
-importing the command-line framework; the click commands in :mod:`machinecheck.cli` call the
-same functions, so both give the same lines.
+The line builders take the options' texts and return the lines; the click commands below print
+them. Heavy modules (pint through the unit parser, physics) are imported on use, so a lookup
+starts fast.
 """
 
 from __future__ import annotations
 
+from typing import Any
+
+import click
+
 from ..errors import InputError, MachinecheckError
+from .output import write_stdout
 
 
-def _number_or_text(text):
+def _number_or_text(text: Any) -> Any:
     try:
         return float(text)
     except (TypeError, ValueError):
         return text
 
 
-def _value(text, kind, option):
+def _value(text: Any, kind: str, option: str) -> float:
     from ..inputs import units
 
     try:
-        return units.parse(_number_or_text(text), kind)
+        return float(units.parse(_number_or_text(text), kind))
     except InputError as exc:
         raise InputError(exc.message, key=option) from None
 
 
-def speed_lines(poles=None, frequency=None, rated_speed=None, rated_frequency=None) -> list[str]:
+def speed_lines(poles: int | None = None, frequency: str | None = None,
+                rated_speed: str | None = None, rated_frequency: str | None = None) -> list[str]:
     """Synchronous speed, and the slip-adjusted speed at a new frequency."""
     from ..physics import speed as sp
 
@@ -58,7 +64,7 @@ def speed_lines(poles=None, frequency=None, rated_speed=None, rated_frequency=No
     return lines
 
 
-def poles_lines(speed_text, frequency) -> list[str]:
+def poles_lines(speed_text: str, frequency: str) -> list[str]:
     """Pole count, synchronous speed and slip from a nameplate speed."""
     from ..physics import speed as sp
 
@@ -73,7 +79,8 @@ def poles_lines(speed_text, frequency) -> list[str]:
             f"{100 * sp.slip(n_s, n):.1f} %)"]
 
 
-def current_lines(power, voltage, phases="3", efficiency=None, power_factor=None) -> list[str]:
+def current_lines(power: str, voltage: str, phases: str = "3", efficiency: str | None = None,
+                  power_factor: str | None = None) -> list[str]:
     """Full-load current from output, voltage, efficiency and power factor."""
     from ..physics import current as cp
 
@@ -98,3 +105,38 @@ def current_lines(power, voltage, phases="3", efficiency=None, power_factor=None
         raise InputError(str(exc), key="--efficiency") from None
     return [f"{amps:.1f} A  (P / ({root}V x eta x PF) = {watts:.0f} / ({root}{volts:g} x "
             f"{eta:g} x {pf:g}); {phase_count}-phase)"]
+
+
+def _print(lines: list[str]) -> None:
+    write_stdout([line + "\n" for line in lines])
+
+
+@click.command()
+@click.option("--poles", type=int, help="number of poles (or give --rated-speed)")
+@click.option("--frequency", required=True, help="supply frequency, e.g. 50 or '50 Hz'")
+@click.option("--rated-speed", "rated_speed", help="nameplate speed, e.g. '1175 rpm'")
+@click.option("--rated-frequency", "rated_frequency", help="frequency of the nameplate speed")
+def speed(poles: int | None, frequency: str, rated_speed: str | None,
+          rated_frequency: str | None) -> None:
+    """Synchronous speed, and the slip-adjusted speed at a new frequency."""
+    _print(speed_lines(poles, frequency, rated_speed, rated_frequency))
+
+
+@click.command()
+@click.option("--speed", "speed_text", required=True, help="nameplate speed, e.g. '1460 rpm'")
+@click.option("--frequency", required=True, help="rated frequency, e.g. '50 Hz'")
+def poles(speed_text: str, frequency: str) -> None:
+    """Pole count, synchronous speed and slip from a nameplate speed."""
+    _print(poles_lines(speed_text, frequency))
+
+
+@click.command()
+@click.option("--power", required=True, help="rated output, e.g. '22 kW', '30 hp', or '500 kVA'")
+@click.option("--voltage", required=True, help="line-to-line voltage, e.g. '400 V'")
+@click.option("--phases", type=click.Choice(["1", "3"]), default="3", show_default=True)
+@click.option("--efficiency", help="full-load efficiency, e.g. 0.92 or '92 %'")
+@click.option("--power-factor", "power_factor", help="full-load power factor, e.g. 0.85")
+def current(power: str, voltage: str, phases: str, efficiency: str | None,
+            power_factor: str | None) -> None:
+    """Full-load current from output, voltage, efficiency and power factor."""
+    _print(current_lines(power, voltage, phases, efficiency, power_factor))

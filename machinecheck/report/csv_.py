@@ -4,6 +4,8 @@ from __future__ import annotations
 
 import csv
 import io
+from collections.abc import Iterable
+from typing import Any
 
 from ..report import CAUTION
 from ..report.data import result_dict
@@ -15,26 +17,36 @@ COLUMNS = ("machine", "site", "verdict", "rating_frequency_hz", "rating_voltage_
 SEPARATOR = ""
 
 
-def _safe(value):
-    """Spreadsheet-safe cell: text that a spreadsheet would run as a formula is quoted."""
-    if isinstance(value, str) and value[:1] in ("=", "+", "-", "@"):
+#: First characters with which a spreadsheet starts a formula (or, tab and carriage return,
+#: which some spreadsheets skip before looking for one).
+FORMULA_STARTS = ("=", "+", "-", "@", "\t", "\r")
+
+
+def neutral_cell(value: object) -> object:
+    """A CSV cell a spreadsheet shows as text, never runs as a formula.
+
+    Text starting with one of :data:`FORMULA_STARTS` gets a leading apostrophe (the
+    spreadsheets' own mark for "text"); numbers, None (an empty cell) and other text are kept.
+    Every CSV the project writes passes its cells through this function.
+    """
+    if isinstance(value, str) and value.startswith(FORMULA_STARTS):
         return "'" + value
     return "" if value is None else value
 
 
-def head(**_) -> str:
+def head(**_: Any) -> str:
     buffer = io.StringIO()
     csv.writer(buffer, lineterminator="\n").writerow(COLUMNS)
     return buffer.getvalue()
 
 
-def chunk(assessments, **_) -> str:
+def chunk(assessments: Iterable[Any], **_: Any) -> str:
     buffer = io.StringIO()
     writer = csv.writer(buffer, lineterminator="\n")
     for a in assessments:
         d = result_dict(a)
         codes = ";".join(f"{f['severity']}:{f['code']}" for f in d["findings"])
-        writer.writerow([_safe(x) for x in (
+        writer.writerow([neutral_cell(x) for x in (
             d["machine"], d["site"], d["verdict"], d["rating"]["frequency_hz"],
             d["rating"]["voltage_v"], d["rating"]["connection"], d["synchronous_speed_rpm"],
             d["expected_speed_rpm"], d["rated_power_kw"], d["available_power_kw"],
@@ -43,20 +55,20 @@ def chunk(assessments, **_) -> str:
     return buffer.getvalue()
 
 
-def chunk_bytes(assessments, **options) -> bytes:
+def chunk_bytes(assessments: Iterable[Any], **options: Any) -> bytes:
     return chunk(assessments, **options).encode()
 
 
-def join(chunks) -> str:
+def join(chunks: Iterable[str]) -> str:
     return "".join(chunks)
 
 
-def tail(**_) -> str:
+def tail(**_: Any) -> str:
     """The caution as a last row, first cell, where a spreadsheet shows it."""
     buffer = io.StringIO()
     csv.writer(buffer, lineterminator="\n").writerow([CAUTION] + [""] * (len(COLUMNS) - 1))
     return buffer.getvalue()
 
 
-def render(assessments, **_) -> str:
+def render(assessments: Iterable[Any], **_: Any) -> str:
     return head() + chunk(assessments) + tail()

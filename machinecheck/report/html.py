@@ -6,7 +6,9 @@ zones with each machine's operating point, a table, and each pair's findings and
 
 from __future__ import annotations
 
+from collections.abc import Callable, Iterable, Sequence
 from html import escape
+from typing import Any
 
 from .. import __version__
 from ..physics import tolerance
@@ -37,18 +39,18 @@ _W, _H, _PAD = 520, 360, 48
 _POINT_COLOUR = {"compatible": "#2a7d2a", "conditional": "#b07800", "incompatible": "#c0271b"}
 
 
-def _e(text) -> str:
+def _e(text: object) -> str:
     return escape("".join(ch if ch.isprintable() or ch == "\n" else " " for ch in str(text)))
 
 
-def _xy(df, dv):
+def _xy(df: float, dv: float) -> tuple[float, float]:
     (x0, x1), (y0, y1) = _X_RANGE, _Y_RANGE
     x = _PAD + (df - x0) / (x1 - x0) * (_W - 2 * _PAD)
     y = _H - _PAD - (dv - y0) / (y1 - y0) * (_H - 2 * _PAD)
     return x, y
 
 
-def operating_points(group):
+def operating_points(group: Iterable[Any]) -> list[tuple[str, float, float, bool, str]]:
     """(machine id, df, dV, re-rated, verdict) per pair, as the tolerance rule judged them."""
     points = []
     for a in group:
@@ -60,7 +62,7 @@ def operating_points(group):
     return points
 
 
-def zone_diagram(site, group) -> str:
+def zone_diagram(site: Any, group: Iterable[Any]) -> str:
     """Inline SVG: the standard's V/f zones with each machine's operating point."""
     parts = [f'<svg viewBox="0 0 {_W} {_H}" role="img" '
              f'aria-label="voltage and frequency zones for {_e(site.id)}">',
@@ -101,7 +103,7 @@ def zone_diagram(site, group) -> str:
                  f'transform="rotate(-90 12 {_H / 2:.0f})">voltage deviation (re-rated: '
                  'flux k - 1), %</text>')
     (x0, x1), (y0, y1) = _X_RANGE, _Y_RANGE
-    groups: dict[tuple, list] = {}
+    groups: dict[tuple[int, int, bool, bool], list[tuple[float, float, Any]]] = {}
     for point in operating_points(group):
         _, df, dv, rerated, _ = point
         clipped = not (x0 <= df <= x1 and y0 <= dv <= y1)
@@ -133,14 +135,14 @@ def zone_diagram(site, group) -> str:
     return "".join(parts)
 
 
-def _figures(a) -> list[tuple[str, str]]:
+def _figures(a: Any) -> list[tuple[str, str]]:
     rows = [("rating set", f"{a.rating.frequency_hz:g} Hz, "
                            f"{a.connection.name or 'as stamped'} {a.rated_voltage_v:.0f} V"),
             ("supply to winding", f"{a.supply_voltage_v:.0f} V {a.supply_voltage_note}".strip()),
             ("flux ratio k", f"{a.flux_ratio:.3f}"),
             ("synchronous speed", f"{a.synchronous_speed_rpm:.0f} rpm")]
     basis = f" ({a.operating_point_basis})" if a.operating_point_basis else ""
-    optional = (
+    optional: tuple[tuple[str, Any, Callable[[Any], str]], ...] = (
         ("expected speed", a.expected_speed_rpm, lambda v: f"{v:.0f} rpm{basis}"),
         ("available output", a.available_power_w,
          lambda v: f"{v / 1000:.2f} of {a.rated_power_w / 1000:.2f} kW (x {a.combined_factor:.3f})"),
@@ -155,11 +157,18 @@ def _figures(a) -> list[tuple[str, str]]:
     return rows
 
 
-def render(assessments, *, explain=False, **_) -> str:
+#: Title of the report, and of the demo's.
+TITLE = "machinecheck report"
+DEMO_TITLE = "machinecheck demo report: an invented fleet against invented sites"
+
+
+def render(assessments: Sequence[Any], *, explain: bool = False, demo: bool = False,
+           **_: Any) -> str:
+    title = _e(DEMO_TITLE if demo else TITLE)
     out = ['<!DOCTYPE html>', '<html lang="en"><head><meta charset="utf-8">',
            '<meta name="viewport" content="width=device-width, initial-scale=1">',
-           '<title>machinecheck report</title>', f'<style>{_CSS}</style></head><body>',
-           '<h1>machinecheck report</h1>',
+           f'<title>{title}</title>', f'<style>{_CSS}</style></head><body>',
+           f'<h1>{title}</h1>',
            f'<p class="caution">{_e(CAUTION)}</p>']
     counts = summary_counts(assessments)
     out += ['<h2>Summary</h2>', '<table><thead><tr><th>site</th><th>compatible</th>'

@@ -2,19 +2,28 @@
 
 from __future__ import annotations
 
+from collections.abc import Sequence
+from typing import Any
+
 from ..report import CAUTION
 from ..report.data import SITE_COLUMNS, by_site, driving_findings, site_row, summary_counts, worst_first
 from ..report.matrix import verdict_matrix
 
 
-def cell(text) -> str:
+def cell(text: object) -> str:
     """Table-cell text: pipes escaped, line breaks and control characters removed."""
     cleaned = "".join(ch if ch.isprintable() else " " for ch in str(text))
     return cleaned.replace("\\", "\\\\").replace("|", "\\|")
 
 
-def render(assessments, *, explain=False, matrix=False, **_) -> str:
-    out = ["# machinecheck report", ""]
+#: Title of the report, and of the demo's.
+TITLE = "machinecheck report"
+DEMO_TITLE = "machinecheck demo report: an invented fleet against invented sites"
+
+
+def render(assessments: Sequence[Any], *, explain: bool = False, matrix: bool = False,
+           demo: bool = False, **_: Any) -> str:
+    out = [f"# {DEMO_TITLE if demo else TITLE}", ""]
     counts = summary_counts(assessments)
     out += ["| site | compatible | conditional | incompatible |", "|---|---:|---:|---:|"]
     out += [f"| {cell(s)} | {c['compatible']} | {c['conditional']} | {c['incompatible']} |"

@@ -187,7 +187,7 @@ def test_usage_errors_exit_2(args):
 def test_markdown_report_tables_are_well_formed():
     result = run("check", "--format", "markdown", "--matrix")
     lines = result.output.splitlines()
-    assert lines[0] == "# machinecheck report"
+    assert lines[0] == "# machinecheck demo report: an invented fleet against invented sites"
     tables = [line for line in lines if line.startswith("|")]
     header_cols = None
     for line in tables:
@@ -296,9 +296,10 @@ def test_output_temporary_files_are_new_and_private(tmp_path):
     import os
     import stat
 
-    from machinecheck.cli.main import _new_file
+    from machinecheck.cli.output import new_temporary
 
-    (fd1, one), (fd2, two) = _new_file(str(tmp_path)), _new_file(str(tmp_path))
+    target = str(tmp_path / "report.json")
+    (fd1, one), (fd2, two) = new_temporary(str(tmp_path), target), new_temporary(str(tmp_path), target)
     os.close(fd1)
     os.close(fd2)
     assert one != two and os.path.dirname(one) == str(tmp_path)

@@ -9,7 +9,7 @@ import os
 import pytest
 from click.testing import CliRunner
 
-from machinecheck.cli.main import main
+from machinecheck.cli.main import _demo_path, main
 
 CORPUS = os.path.join(os.path.dirname(__file__), "corpus")
 FILES = sorted(f for f in os.listdir(CORPUS) if f.endswith(".toml"))
@@ -60,7 +60,7 @@ voltage = "400 V"
 power = "4 kW"
 speed = "1440 rpm"
 """)
-    result = run("check", path)
+    result = run("check", path, "--sites", _demo_path("sites.toml"))
     check_failure(result, "poles", "rating[1].frequency", "rating[1].power", "duplicate id")
     assert len([x for x in result.output.splitlines() if x.startswith("machinecheck: error")]) == 4
 
@@ -109,7 +109,7 @@ def test_user_text_printed_literally(write):
     path = write("odd.toml", '[[machine]]\nid = "[red]X[/]"\ndescription = "[/]"\n'
                              '[[machine.rating]]\nfrequency = "50 Hz"\nvoltage = "400 V"\n'
                              'power = "4 kW"\nspeed = "1440 rpm"\n')
-    result = run("check", path, "--site", "harrowgate")
+    result = run("check", path, "--sites", _demo_path("sites.toml"), "--site", "harrowgate")
     assert result.exit_code in (0, 1)
     assert "[red]X[/]" in result.output
 

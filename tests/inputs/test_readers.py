@@ -107,7 +107,9 @@ def test_unclosed_quote_names_its_line(write):
 
 def test_ten_thousand_bad_rows_give_fifty_lines_and_a_count(write):
     rows = "".join(f"M-{i},3,50 Hz,400 V,21 A,11 kW,1460 rpm,191 %\n" for i in range(10_000))
-    result = CliRunner().invoke(main, ["check", write("inv.csv", HEADER + rows)])
+    sites = write("sites.toml", '[[site]]\nid = "S"\nfrequency = "50 Hz"\nvoltage = "400 V"\nphases = 3\n'
+                  'standard = "IEC"\n')
+    result = CliRunner().invoke(main, ["check", write("inv.csv", HEADER + rows), "--sites", sites])
     assert result.exit_code == 2
     lines = [x for x in result.output.splitlines() if x.startswith("machinecheck: error:")]
     assert len(lines) == 51
