@@ -84,7 +84,8 @@ def render(assessments: Sequence[Any], *, explain: bool = False, matrix: bool = 
             if a.speed_band_rpm is not None and a.expected_speed_rpm is not None:
                 speed += f" ±{a.speed_band_rpm:.0f}"
             output = output_text(a)
-            if a.machine.is_generator and a.available_apparent_power_va is not None:
+            if (a.machine.is_generator and a.available_apparent_power_va is not None
+                    and a.rated_apparent_power_va is not None):
                 output = (f"{a.available_apparent_power_va / 1000:.0f} / "
                           f"{a.rated_apparent_power_va / 1000:.0f} kVA")
             row: list[Text | str] = [
@@ -124,7 +125,7 @@ def render(assessments: Sequence[Any], *, explain: bool = False, matrix: bool = 
             row = [Text(_safe(machine_id))]
             for site_id in site_ids:
                 verdict = cells.get((machine_id, site_id))
-                row.append(Text(verdict or "", style=_STYLE.get(verdict, "")))
+                row.append(Text(verdict or "", style=_STYLE.get(verdict or "", "")))
             grid.add_row(*row)
         console.print(grid)
     counts = summary_counts(assessments)

@@ -12,6 +12,7 @@ from __future__ import annotations
 
 import html
 import json
+import os
 import random
 import re
 import shutil
@@ -43,6 +44,8 @@ from machinecheck.report.charts import (
 from machinecheck.report.charts._svg import Canvas, esc
 
 CHROMIUM = shutil.which("chromium") or shutil.which("chromium-browser")
+if CHROMIUM is None and os.environ.get("MACHINECHECK_BROWSER_TESTS") == "required":
+    raise RuntimeError("browser tests are required here but chromium is not installed (.ci/chromium)")
 pytestmark = pytest.mark.skipif(
     CHROMIUM is None, reason="chromium is not installed (Debian package chromium; .ci/chromium "
                              "installs it)")
