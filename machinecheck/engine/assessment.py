@@ -58,7 +58,8 @@ class Tolerance:
 
     ``basis`` is "rated", or "re-rated" when judged as flux at a new frequency. IEC gives a
     ``zone`` ("A", "B" or None outside); NEMA gives ``combined_variation`` (|dV| + |df|).
-    ``worst_voltage_deviation`` is the worst point over the site's measured voltage range.
+    ``worst_voltage_deviation`` and ``worst_frequency_deviation`` are the worst point over the
+    site's measured voltage range and stated frequency variation, judged together.
     """
 
     standard: str
@@ -69,6 +70,7 @@ class Tolerance:
     zone: str | None
     combined_variation: float | None
     worst_voltage_deviation: float
+    worst_frequency_deviation: float = 0.0
 
 
 @dataclass(frozen=True, slots=True)

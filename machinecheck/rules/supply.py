@@ -39,8 +39,13 @@ def _where(choice: RatingChoice, supply: Supply, t: Tolerance) -> str:
     where = (f"{supply.terminal_voltage_v:.0f} V {supply.site.frequency_hz:g} Hz on a {rated} "
              f"{choice.rating.frequency_hz:g} Hz rating: dV {100 * dv:+.1f} %, "
              f"df {100 * df:+.1f} %")
-    if supply.site.voltage_range_v is not None and abs(worst - dv) > 1e-9:
-        where += f" (worst end of the site's voltage range dV {100 * worst:+.1f} %)"
+    worst_f = t.worst_frequency_deviation
+    if abs(worst - dv) > 1e-9 or abs(worst_f - df) > 1e-9:
+        where += f" (worst end of the site's voltage range dV {100 * worst:+.1f} %"
+        if supply.site.frequency_variation:
+            where += (f" with its stated frequency variation "
+                      f"+-{100 * supply.site.frequency_variation:g} %: df {100 * worst_f:+.1f} %")
+        where += ")"
     return where
 
 

@@ -157,7 +157,7 @@ def test_three_phase_on_single_phase_incompatible():
 def test_single_phase_motor_on_wye_uses_line_to_neutral():
     m = machine({"frequency": "50 Hz", "voltage": "230 V", "power": "1.5 kW",
                  "speed": "2850 rpm"}, phases=1)
-    a = assess(m, site(frequency="50 Hz", voltage="400 V", system="wye", standard="IEC"))
+    a = assess(m, site(frequency="50 Hz", voltage="400 V", system="wye", wires=4, standard="IEC"))
     assert a.supply_voltage_v == pytest.approx(400 / 3 ** 0.5)
     assert a.verdict == "compatible"
 

@@ -1,0 +1,71 @@
+"""Verdicts a practitioner can trust: each check of the standards the engine applies, on the
+plate and site that show it."""
+
+import pytest
+from helpers import codes, machine, site
+
+from machinecheck.engine.pipeline import assess
+
+IEC_11KW = {"frequency": "50 Hz", "voltage": "400 V", "power": "11 kW", "speed": "1460 rpm",
+            "current": "21.5 A", "efficiency": 0.905, "power_factor": 0.82}
+NEMA_20HP = {"frequency": "60 Hz", "voltage": "460 V", "power": "20 hp", "speed": "1765 rpm",
+             "current": "24 A", "efficiency": 0.924, "power_factor": 0.85}
+
+
+# ----------------------------------------------------------------------------- off-nominal f
+
+@pytest.mark.parametrize("frequency", ["47 Hz", "48 Hz", "51 Hz", "52 Hz"])
+def test_an_off_nominal_frequency_is_a_variation_not_a_new_nominal(frequency):
+    # Re-rating is for a change of nominal (50 <-> 60 Hz); 47-52 Hz on a 50 Hz system is judged
+    # in the voltage-frequency zones [IEC 60034-1:2022 §7.3].
+    a = assess(machine(IEC_11KW), site(frequency=frequency, voltage="400 V", standard="IEC"))
+    assert a.supply.rerated is False
+    assert "frequency-change" not in codes(a)
+
+
+def test_47_hz_on_a_50_hz_motor_is_outside_zone_b():
+    # df = -6 % is beyond zone B's -5 % [IEC 60034-1:2022 §7.3]: said plainly, not re-rated.
+    a = assess(machine(IEC_11KW), site(frequency="47 Hz", voltage="400 V", standard="IEC"))
+    assert "outside-tolerance" in codes(a, "problem")
+    assert a.verdict == "incompatible"
+
+
+def test_51_hz_at_nominal_voltage_is_in_zone_a():
+    # df = +2 % is the edge of zone A (+-2 %);
+    # on the zone boundary the point belongs to the zone [IEC 60034-1:2022 §7.3].
+    a = assess(machine(IEC_11KW), site(frequency="51 Hz", voltage="400 V", standard="IEC"))
+    assert a.supply.tolerance.zone == "A"
+
+
+def test_a_stated_frequency_variation_is_judged_with_the_voltage():
+    # 50 Hz +-3 %: both ends lie in zone B (-5/+3 %), not A (+-2 %) [IEC 60034-1:2022 §7.3].
+    a = assess(machine(IEC_11KW), site(frequency="50 Hz", voltage="400 V", standard="IEC",
+                                       frequency_variation="3 %"))
+    assert a.supply.rerated is False
+    assert a.supply.tolerance.zone == "B"
+    assert "tolerance-zone-b" in codes(a, "warning")
+    assert "variation +-3 %: df -3.0 %" in next(f.message for f in a.findings if f.code == "tolerance-zone-b")
+
+
+def test_a_variation_of_4_percent_is_outside_zone_b_and_said_plainly():
+    # +4 % is beyond zone B's +3 % [IEC 60034-1:2022 §7.3].
+    a = assess(machine(IEC_11KW), site(frequency="50 Hz", voltage="400 V", standard="IEC",
+                                       frequency_variation="4 %"))
+    assert a.supply.rerated is False
+    assert "outside-tolerance" in codes(a, "problem")
+
+
+def test_overvoltage_with_low_frequency_is_cut_off_by_the_zone_corner():
+    # dU +4 % with df -2 %: |dU - df| = 6 % > 5 %, outside the cut corner of zone A
+    # [IEC 60034-1:2022 §7.3]; at nominal frequency the same voltage is zone A.
+    a = assess(machine(IEC_11KW), site(frequency="50 Hz", voltage="416 V", standard="IEC",
+                                       frequency_variation="2 %"))
+    assert a.supply.tolerance.zone == "B"
+
+
+def test_a_nema_variation_of_3_percent_with_8_percent_voltage_is_outside_the_combined_limit():
+    # |dV| + |df| = 8 % + 3 % = 11 % > 10 % [NEMA MG 1-2016 §12.44].
+    a = assess(machine(NEMA_20HP), site(frequency="60 Hz", voltage="496.8 V", standard="NEMA",
+                                        frequency_variation="3 %"))
+    assert a.supply.tolerance.within is False
+    assert "outside-tolerance" in codes(a, "problem")
