@@ -201,6 +201,9 @@ class Currents:
     power_hp: float | None
     conductor_a: float | None
     locked_rotor: LockedRotorCurrent | None
+    #: which rule of NEC 430.6(A)(1) set the current for conductors and short-circuit
+    #: protection (the table, or the nameplate and why); None when not judged (IEC sites)
+    code_rule: str | None = None
 
 
 @dataclass(frozen=True, slots=True)

@@ -40,6 +40,9 @@ from .assessment import (
 
 LoadTorque = Callable[[float], float]
 
+#: The NEC full-load current table for a winding of so many phases.
+TABLE_BY_PHASES = {1: "Table 430.248", 2: "Table 430.249", 3: "Table 430.250"}
+
 #: Connection names read as delta and as star (lower case).
 DELTA_NAMES = frozenset({"delta", "d", "Δ", "triangle", "dreieck", "low-delta"})
 STAR_NAMES = frozenset({"star", "y", "wye", "Y", "yy", "high-star"})
@@ -263,25 +266,51 @@ def _motor_currents(machine: Machine, choice: RatingChoice, supply: Supply,
             basis = "nameplate"
         elif formula is not None:
             full, basis = formula, "formula"
-    code_a: float | None = None
-    code_hp: int | float | None = None
-    power_hp: float | None = None
-    site = supply.site
-    if site.standard == "NEMA" and rating.power_w and supply.phases_ok:
-        power_hp = hp_from_w(rating.power_w)
-        synchronous = machine.kind == "synchronous-motor"
-        # only a synchronous motor's table current depends on its power factor
-        power_factor = (rating.power_factor or 1.0) if synchronous else 1.0
-        for volts in (c.voltage_v, site.voltage_v):
-            found = nec.table_current(power_hp, volts, machine.phases, synchronous, power_factor)
-            if found:
-                code_a, code_hp = found
-                break
+    code_a, code_hp, power_hp, code_rule = _code_current(machine, choice, supply)
     return Currents(
         full_load_a=full, basis=basis, load_a=load_a, power_ratio=power_ratio, formula_a=formula,
         nameplate_formula_ratio=plate_ratio, code_a=code_a, code_hp=code_hp, power_hp=power_hp,
         conductor_a=None if code_a is None else nec.conductor_current(code_a),
-        locked_rotor=_locked_rotor(machine, choice))
+        locked_rotor=_locked_rotor(machine, choice), code_rule=code_rule)
+
+
+def _code_current(machine: Machine, choice: RatingChoice, supply: Supply
+                  ) -> tuple[float | None, int | float | None, float | None, str | None]:
+    """(table current, table hp, rated hp, the rule applied) on a NEMA site, by the scope of
+    NEC 430.6(A)(1): the table current except for low-speed and multispeed motors, and
+    synchronous motors whose power factor has no footnote multiplier."""
+    rating, c, site = choice.rating, choice.connection, supply.site
+    if site.standard != "NEMA" or not rating.power_w or not supply.phases_ok:
+        return None, None, None, None
+    power_hp = hp_from_w(rating.power_w)
+    table = TABLE_BY_PHASES.get(machine.phases, "Table 430.250")
+    scope = f"[{nec.SCOPE_EDITION}] 430.6(A)(1)"
+    multispeed = len({r.poles for r in machine.ratings if r.poles is not None}) > 1
+    reason = nec.nameplate_reason(
+        synchronous_speed_rpm(rating.frequency_hz, choice.poles), multispeed)
+    if reason is not None:
+        return None, None, power_hp, f"nameplate current: {reason} ({scope})"
+    synchronous = machine.kind == "synchronous-motor"
+    power_factor = 1.0
+    if synchronous:
+        if rating.power_factor is None:
+            return None, None, power_hp, (
+                "nameplate current: no rated power factor to choose the Table 430.250 "
+                f"synchronous-motor multiplier ({scope})")
+        if nec.sync_multiplier(rating.power_factor) is None:
+            return None, None, power_hp, (
+                f"nameplate current: rated power factor {rating.power_factor:g} has no "
+                "Table 430.250 multiplier (given for unity, 0.9 and 0.8 only; not rounded to "
+                f"one) ({scope})")
+        power_factor = rating.power_factor
+    for volts in (c.voltage_v, site.voltage_v):
+        found = nec.table_current(power_hp, volts, machine.phases, synchronous, power_factor)
+        if found:
+            return found[0], found[1], power_hp, (
+                f"table current: {table} ([{nec.TABLE_EDITION}] values), {scope}")
+    return None, None, power_hp, (
+        f"nameplate current: {table} has no value for {power_hp:.1f} hp at "
+        f"{c.voltage_v:g} V ({scope})")
 
 
 def _locked_rotor(machine: Machine, choice: RatingChoice) -> LockedRotorCurrent | None:

@@ -63,7 +63,7 @@ def see(machine: Machine, site: Site, choice: RatingChoice, offer: Offer) -> Sup
     return Supply(
         site=site, supply_voltage_v=site.voltage_v, terminal_voltage_v=offer.voltage_v,
         terminal_note=offer.note, frequency_ratio=frequency_ratio, rerated=rerated,
-        phases_ok=machine.phases == 1 or site.phases == 3,
+        phases_ok=machine.phases == 1 or site.phases == machine.phases,
         tolerance=judge_tolerance(machine, site, choice, offer.voltage_v, frequency_ratio,
                                   rerated))
 

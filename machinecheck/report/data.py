@@ -71,6 +71,7 @@ def result_dict(a: Assessment, *, explain: bool = False) -> dict[str, Any]:
             "basis": lrc.basis},
         "code_current_a": _round(currents.code_a, 2),
         "code_current_hp": currents.code_hp,
+        "code_current_rule": currents.code_rule,
         "conductor_current_a": _round(currents.conductor_a, 2),
         "voltage_unbalance": _round(running.derates.unbalance, 4),
         "efficiency_class": running.efficiency_class,

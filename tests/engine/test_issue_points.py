@@ -5,6 +5,7 @@ import pytest
 from helpers import codes, machine, site
 
 from machinecheck.engine.pipeline import assess
+from machinecheck.report.data import result_dict
 
 IEC_11KW = {"frequency": "50 Hz", "voltage": "400 V", "power": "11 kW", "speed": "1460 rpm",
             "current": "21.5 A", "efficiency": 0.905, "power_factor": 0.82}
@@ -69,3 +70,67 @@ def test_a_nema_variation_of_3_percent_with_8_percent_voltage_is_outside_the_com
                                         frequency_variation="3 %"))
     assert a.supply.tolerance.within is False
     assert "outside-tolerance" in codes(a, "problem")
+
+
+# ----------------------------------------------------------------------------- NEC 430.6(A)(1)
+
+NEMA_SITE = dict(frequency="60 Hz", voltage="480 V", standard="NEMA")
+
+
+def test_a_4_pole_motor_takes_the_table_current():
+    # 20 hp 460 V: 27 A [NFPA 70-2008 Table 430.250]; scope [NFPA 70-2023] 430.6(A)(1).
+    a = assess(machine(NEMA_20HP), site(**NEMA_SITE))
+    assert a.running.currents.code_a == 27
+    assert a.running.currents.code_rule.startswith("table current: Table 430.250")
+
+
+def test_an_8_pole_motor_is_low_speed_and_takes_the_nameplate_current():
+    # 8 poles at 60 Hz: 900 rpm synchronous, less than 1200 rpm: nameplate current
+    # [NFPA 70-2023] 430.6(A)(1).
+    a = assess(machine({**NEMA_20HP, "speed": "875 rpm", "current": "28 A"}), site(**NEMA_SITE))
+    currents = a.running.currents
+    assert currents.code_a is None
+    assert "low speed (900 rpm synchronous, less than 1200 rpm)" in currents.code_rule
+    assert result_dict(a)["code_current_rule"] == currents.code_rule
+
+
+def test_a_6_pole_60_hz_motor_is_not_low_speed():
+    # 1200 rpm synchronous is not "less than 1200 rpm" [NFPA 70-2023] 430.6(A)(1).
+    a = assess(machine({**NEMA_20HP, "speed": "1175 rpm"}), site(**NEMA_SITE))
+    assert a.running.currents.code_a == 27
+
+
+def test_a_multispeed_motor_takes_the_nameplate_current():
+    # one rating set per speed: multispeed, nameplate current [NFPA 70-2023] 430.6(A)(1).
+    m = machine([NEMA_20HP,
+                 {**NEMA_20HP, "power": "5 hp", "speed": "870 rpm", "current": "9 A"}])
+    a = assess(m, site(**NEMA_SITE))
+    assert a.running.currents.code_a is None
+    assert "multispeed" in a.running.currents.code_rule
+
+
+def test_a_synchronous_motor_at_0_85_pf_is_not_rounded_to_a_footnote_multiplier():
+    # Table 430.250 footnote: x1.1 at 0.9 PF, x1.25 at 0.8 PF only [NFPA 70-2008 Table 430.250].
+    plate = {"frequency": "60 Hz", "voltage": "460 V", "power": "100 hp", "speed": "1800 rpm",
+             "current": "110 A", "power_factor": 0.85, "efficiency": 0.95}
+    a = assess(machine(plate, kind="synchronous-motor"), site(**NEMA_SITE))
+    assert a.running.currents.code_a is None
+    assert "0.85 has no Table 430.250 multiplier" in a.running.currents.code_rule
+
+
+def test_a_synchronous_motor_at_0_8_pf_takes_the_footnote_multiplier():
+    # 100 hp 460 V unity 101 A x 1.25 = 126.25 A [NFPA 70-2008 Table 430.250].
+    plate = {"frequency": "60 Hz", "voltage": "460 V", "power": "100 hp", "speed": "1800 rpm",
+             "current": "125 A", "power_factor": 0.8, "efficiency": 0.95}
+    a = assess(machine(plate, kind="synchronous-motor"), site(**NEMA_SITE))
+    assert a.running.currents.code_a == pytest.approx(126.25)
+
+
+def test_a_two_phase_motor_takes_table_430_249():
+    # 10 hp 460 V two-phase: 12 A [NFPA 70-2008 Table 430.249].
+    plate = {"frequency": "60 Hz", "voltage": "460 V", "power": "10 hp", "speed": "1750 rpm",
+             "current": "12.5 A"}
+    a = assess(machine(plate, phases=2), site(frequency="60 Hz", voltage="480 V", phases=2,
+                                              standard="NEMA"))
+    assert a.running.currents.code_a == 12
+    assert a.running.currents.code_rule.startswith("table current: Table 430.249")
