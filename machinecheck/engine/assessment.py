@@ -22,6 +22,7 @@ from typing import Literal
 
 from ..model import Connection, Machine, Rating, Site
 from ..physics.circuit import Circuit
+from ..physics.efficiency import ClassCheck
 
 Severity = Literal["info", "warning", "problem"]
 Verdict = Literal["compatible", "conditional", "incompatible"]
@@ -232,8 +233,13 @@ class Running:
     service_factor: float
     service_factor_at_site: float
     star_delta_possible: bool | None
+    #: the motor's IE class: the marked class, or when none is marked the class its plate
+    #: efficiency reaches; the marked class is never replaced
     efficiency_class: str | None
+    #: nominal minimum efficiency of the marked class, None when unmarked or not carried
     efficiency_class_minimum: float | None
+    #: the marked class beside the class the plate efficiency reaches (None: out of scope)
+    efficiency_check: ClassCheck | None = None
 
 
 # ----------------------------------------------------------------------------- assessment

@@ -5,6 +5,7 @@ Every figure comes from :mod:`machinecheck.physics`; this module only decides wh
 
 from __future__ import annotations
 
+import math
 from collections.abc import Callable
 
 from ..errors import DomainError
@@ -26,7 +27,7 @@ from ..physics.constants import (
     star_delta_ratio,
     synchronous_speed_rpm,
 )
-from ..physics.efficiency import efficiency_class_of, minimum_efficiency
+from ..physics.efficiency import ClassCheck, check_marked_class
 from .assessment import (
     Currents,
     Derates,
@@ -87,7 +88,8 @@ def run(machine: Machine, choice: RatingChoice, supply: Supply) -> Running:
              and min((v for _, v in derates.factors), default=1.0) >= SERVICE_FACTOR_MIN_DERATE
              and abs(supply.tolerance.voltage_deviation) <= SERVICE_FACTOR_VOLTAGE_BAND
              and abs(supply.frequency_ratio - 1.0) <= SERVICE_FACTOR_FREQUENCY_BAND)
-    efficiency_class, minimum = _efficiency(machine, rating, choice.poles)
+    class_check = _efficiency(machine, rating, choice.poles)
+    minimum = None if class_check is None else class_check.marked_minimum
     return Running(
         synchronous_speed_rpm=n_s, torque_capability=frequency.torque_capability(choice.flux_ratio),
         derates=derates, rated_power_w=rated_power_w, available_power_w=available_w,
@@ -101,7 +103,10 @@ def run(machine: Machine, choice: RatingChoice, supply: Supply) -> Running:
         operating=operating, load=load, currents=currents, service_factor=sf,
         service_factor_at_site=sf if clean else 1.0,
         star_delta_possible=_star_delta(machine, choice),
-        efficiency_class=efficiency_class, efficiency_class_minimum=minimum)
+        efficiency_class=(machine.efficiency_class if class_check is None
+                          else class_check.marked or class_check.computed),
+        efficiency_class_minimum=None if minimum is None or math.isnan(minimum) else minimum,
+        efficiency_check=class_check)
 
 
 # ----------------------------------------------------------------------------- derates
@@ -349,18 +354,17 @@ def _generator_currents(machine: Machine, supply: Supply, available_va: float | 
 
 # ----------------------------------------------------------------------------- plate facts
 
-def _efficiency(machine: Machine, rating: Rating, poles: int) -> tuple[str | None, float | None]:
-    """(IE class the plate efficiency reaches, minimum efficiency of the marked class)."""
+def _efficiency(machine: Machine, rating: Rating, poles: int) -> ClassCheck | None:
+    """The marked IE class beside the class the plate efficiency reaches, or None when the
+    IEC 60034-30-1 tables do not cover the machine (not a three-phase induction motor, not
+    50/60 Hz)."""
     if machine.kind != "induction-motor" or not rating.power_w or machine.phases != 3:
-        return None, None
+        return None
     f = rating.frequency_hz
     if not (abs(f - 50) < 1 or abs(f - 60) < 1):
-        return None, None
-    achieved = (None if rating.efficiency is None
-                else efficiency_class_of(rating.efficiency, rating.power_w, poles, f))
-    minimum = (None if machine.efficiency_class is None
-               else minimum_efficiency(machine.efficiency_class, rating.power_w, poles, f))
-    return achieved, minimum
+        return None
+    return check_marked_class(machine.efficiency_class, rating.efficiency, rating.power_w,
+                              poles, f)
 
 
 def _star_delta(machine: Machine, choice: RatingChoice) -> bool | None:

@@ -134,3 +134,64 @@ def test_a_two_phase_motor_takes_table_430_249():
                                               standard="NEMA"))
     assert a.running.currents.code_a == 12
     assert a.running.currents.code_rule.startswith("table current: Table 430.249")
+
+
+# ----------------------------------------------------------------------------- efficiency class
+
+IEC_4KW = {"frequency": "50 Hz", "voltage": "400 V", "power": "4 kW", "speed": "1440 rpm"}
+IEC_SITE = dict(frequency="50 Hz", voltage="400 V", standard="IEC")
+
+
+def test_the_marked_class_is_the_class_and_a_higher_computed_class_is_a_separate_finding():
+    # 4 kW 4-pole 50 Hz: IE3 minimum 88.6 %, IE4 91.1 % [IEC 60034-30-1:2014 §6, 50 Hz table];
+    # 89.0 % reaches IE3 on a plate marked IE2.
+    a = assess(machine({**IEC_4KW, "efficiency": "89.0 %"}, efficiency_class="IE2"),
+               site(**IEC_SITE))
+    assert a.running.efficiency_class == "IE2"
+    assert result_dict(a)["efficiency_class"] == "IE2"
+    computed = next(f for f in a.findings if f.code == "efficiency-class-computed")
+    assert "plate efficiency 89.0 % reaches IE3" in computed.message
+    assert "as marked" not in computed.message
+
+
+def test_a_marked_class_meets_the_site_requirement_on_its_marking():
+    # marked IE3 on an IE3 site: no class finding against it, whatever the computed class
+    # [IEC 60034-30-1:2014 §6]: 88.0 % is below the 88.6 % IE3 minimum, said separately.
+    a = assess(machine({**IEC_4KW, "efficiency": "88.0 %"}, efficiency_class="IE3"),
+               site(**IEC_SITE, min_efficiency_class="IE3"))
+    assert "efficiency-class-required" not in codes(a)
+    below = next(f for f in a.findings if f.code == "efficiency-below-class")
+    assert "88.0 % is below the IE3 minimum 88.6 %" in below.message
+
+
+def test_an_unmarked_plate_is_judged_with_meets_class():
+    # 4 kW 4-pole 50 Hz IE3 minimum 88.6 % [IEC 60034-30-1:2014 §6]: 88.0 % unmarked is below.
+    a = assess(machine({**IEC_4KW, "efficiency": "88.0 %"}),
+               site(**IEC_SITE, min_efficiency_class="IE3"))
+    required = next(f for f in a.findings if f.code == "efficiency-class-required")
+    assert "88.0 % (no class marked) is below the IE3 minimum 88.6 %" in required.message
+    a = assess(machine({**IEC_4KW, "efficiency": "88.7 %"}),
+               site(**IEC_SITE, min_efficiency_class="IE3"))
+    assert "efficiency-class-required" not in codes(a)
+
+
+def test_the_marked_class_never_reported_as_computed():
+    # marked IE2, plate 85.9 % below the 86.6 % IE2 minimum [IEC 60034-30-1:2014 §6]: the class
+    # stays IE2 and the shortfall is worded against the marking.
+    a = assess(machine({**IEC_4KW, "efficiency": "85.9 %"}, efficiency_class="IE2"),
+               site(**IEC_SITE, min_efficiency_class="IE2"))
+    assert a.running.efficiency_class == "IE2"
+    assert "efficiency-class-required" not in codes(a)
+    assert all("as marked" not in f.message for f in a.findings)
+
+
+def test_a_class_not_carried_by_the_table_cannot_be_confirmed_and_is_not_warned():
+    # IE1 has no 8-pole values in the carried IEC 60034-30-1:2014 tables: an unmarked 8-pole
+    # 11 kW plate on an IE1 site cannot be confirmed from the table; that is said, not warned.
+    plate = {"frequency": "50 Hz", "voltage": "400 V", "power": "11 kW", "speed": "720 rpm",
+             "efficiency": "87.0 %"}
+    a = assess(machine(plate), site(**IEC_SITE, min_efficiency_class="IE1"))
+    unconfirmed = next(f for f in a.findings if f.code == "efficiency-class-unconfirmed")
+    assert unconfirmed.severity == "info"
+    assert "cannot be confirmed from the table" in unconfirmed.message
+    assert "efficiency-class-unknown" not in codes(a)
