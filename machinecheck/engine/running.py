@@ -19,11 +19,11 @@ from ..physics.constants import (
     SERVICE_FACTOR_FREQUENCY_BAND,
     SERVICE_FACTOR_MIN_DERATE,
     SERVICE_FACTOR_VOLTAGE_BAND,
-    SLIP_TOLERANCE,
     STAR_DELTA_FLUX_BAND,
     STAR_DELTA_RATIO_SLACK,
     UNBALANCE_LIMIT,
     hp_from_w,
+    slip_tolerance,
     star_delta_ratio,
     synchronous_speed_rpm,
 )
@@ -78,7 +78,7 @@ def run(machine: Machine, choice: RatingChoice, supply: Supply) -> Running:
             operating = _operating_point(machine, choice, supply, n_s, load_curve)
             if operating is not None and operating.speed_rpm is not None:
                 expected = operating.speed_rpm
-                speed_band = SLIP_TOLERANCE * (n_s - expected)
+                speed_band = slip_tolerance(rated_power_w) * (n_s - expected)
         if machine.load is not None and load_curve is not None and expected is not None:
             load = _load_at_site(machine.load.type, load_curve, expected, available_w)
         currents = _motor_currents(machine, choice, supply, available_w, load, operating)

@@ -196,3 +196,27 @@ def test_a_class_not_carried_by_the_table_cannot_be_confirmed_and_is_not_warned(
     assert unconfirmed.severity == "info"
     assert "cannot be confirmed from the table" in unconfirmed.message
     assert "efficiency-class-unknown" not in codes(a)
+
+
+# ----------------------------------------------------------------------------- slip
+
+def test_a_design_d_motor_at_12_5_percent_slip_is_accepted_and_compatible():
+    # NEMA Design D full-load slip 5-13 % [NEMA MG 1-2016 §1.19.1.4] (from memory): 1575 rpm on
+    # 1800 rpm synchronous is 12.5 %.
+    m = machine({"frequency": "60 Hz", "voltage": "460 V", "power": "10 hp",
+                 "speed": "1575 rpm", "current": "14 A", "efficiency": 0.85,
+                 "power_factor": 0.8}, design_letter="D")
+    assert assess(m, site(frequency="60 Hz", voltage="460 V", standard="NEMA")).verdict == \
+        "compatible"
+
+
+@pytest.mark.parametrize(("power", "speed", "share"), [
+    ("0.75 kW", "1380 rpm", 0.30),   # below 1 kW: +-30 % of the slip
+    ("1.1 kW", "1420 rpm", 0.20),    # 1 kW and above: +-20 %
+])
+def test_the_speed_band_is_the_slip_tolerance_of_the_size(power, speed, share):
+    # [IEC 60034-1:2022] tolerance table, slip: +-30 % below 1 kW, +-20 % from 1 kW.
+    m = machine({"frequency": "50 Hz", "voltage": "400 V", "power": power, "speed": speed})
+    a = assess(m, site(**IEC_SITE))
+    slip_rpm = a.running.synchronous_speed_rpm - a.running.expected_speed_rpm
+    assert a.running.speed_band_rpm == pytest.approx(share * slip_rpm)
