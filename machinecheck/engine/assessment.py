@@ -154,9 +154,16 @@ class OperatingPoint:
 
 @dataclass(frozen=True, slots=True)
 class LoadAtSite:
-    """The driven load at the running speed: speed ratio to its rated speed, power drawn,
-    share of the available output, and the flow, head and power ratios it gives (affinity
-    laws; flow alone for a constant-torque load)."""
+    """The driven load at the site.
+
+    ``power_w`` is drawn at the running speed (the flow, head and power ratios follow it,
+    affinity laws; flow alone for a constant-torque load). ``demand_w`` is the load's power at
+    the speed the site frequency sets with the rated slip (``demand_speed_rpm``: the load's
+    rated speed times the frequency ratio): the load is judged on it against the available
+    output, so that the few rpm a motor gains or loses with its voltage inside the zone are
+    not taken for a change of load. ``fraction`` is ``demand_w`` over the available output,
+    ``margin`` what is left of it (negative: overloaded).
+    """
 
     type: str
     reference_speed_rpm: float
@@ -166,6 +173,9 @@ class LoadAtSite:
     flow_ratio: float | None
     head_ratio: float | None
     power_ratio: float | None
+    demand_w: float = 0.0
+    demand_speed_rpm: float = 0.0
+    margin: float | None = None
 
 
 @dataclass(frozen=True, slots=True)

@@ -80,7 +80,8 @@ def run(machine: Machine, choice: RatingChoice, supply: Supply) -> Running:
                 expected = operating.speed_rpm
                 speed_band = slip_tolerance(rated_power_w) * (n_s - expected)
         if machine.load is not None and load_curve is not None and expected is not None:
-            load = _load_at_site(machine.load.type, load_curve, expected, available_w)
+            load = _load_at_site(machine.load.type, load_curve, expected, available_w,
+                                 supply.frequency_ratio)
         currents = _motor_currents(machine, choice, supply, available_w, load, operating)
 
     sf = rating.service_factor or machine.service_factor
@@ -228,19 +229,25 @@ def _estimate_circuit(machine: Machine,
 
 
 def _load_at_site(load_type: str, curve: tuple[str, float, float], speed_rpm: float,
-                  available_w: float | None) -> LoadAtSite:
-    """The driven load at the running speed (affinity laws for pumps and fans)."""
+                  available_w: float | None, frequency_ratio: float) -> LoadAtSite:
+    """The driven load at the running speed (affinity laws for pumps and fans), and its demand
+    at the speed the site frequency sets, judged against the available output."""
     _, t0, n_ref = curve
+    torque = loads.torque_curve(*curve)
     ratio = speed_rpm / n_ref
-    power = speed_physics.shaft_power(loads.torque_curve(*curve)(speed_rpm), speed_rpm)
+    power = speed_physics.shaft_power(torque(speed_rpm), speed_rpm)
+    demand_speed = n_ref * frequency_ratio
+    demand = speed_physics.shaft_power(torque(demand_speed), demand_speed)
     flow = head = power_ratio = None
     if load_type == "centrifugal":
         flow, head, power_ratio = loads.affinity(ratio)
     elif load_type == "constant-torque":
         flow = ratio
+    fraction = demand / available_w if available_w else None
     return LoadAtSite(type=load_type, reference_speed_rpm=n_ref, speed_ratio=ratio,
-                      power_w=power, fraction=power / available_w if available_w else None,
-                      flow_ratio=flow, head_ratio=head, power_ratio=power_ratio)
+                      power_w=power, fraction=fraction, flow_ratio=flow, head_ratio=head,
+                      power_ratio=power_ratio, demand_w=demand, demand_speed_rpm=demand_speed,
+                      margin=None if fraction is None else 1.0 - fraction)
 
 
 # ----------------------------------------------------------------------------- currents

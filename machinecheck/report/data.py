@@ -76,6 +76,8 @@ def result_dict(a: Assessment, *, explain: bool = False) -> dict[str, Any]:
         "voltage_unbalance": _round(running.derates.unbalance, 4),
         "efficiency_class": running.efficiency_class,
         "load_fraction": None if load is None else _round(load.fraction, 4),
+        "load_demand_kw": None if load is None else _kilo(load.demand_w, 2),
+        "load_margin": None if load is None else _round(load.margin, 4),
         "flow_ratio": None if load is None else _round(load.flow_ratio, 4),
         "head_ratio": None if load is None else _round(load.head_ratio, 4),
     }

@@ -220,3 +220,33 @@ def test_the_speed_band_is_the_slip_tolerance_of_the_size(power, speed, share):
     a = assess(m, site(**IEC_SITE))
     slip_rpm = a.running.synchronous_speed_rpm - a.running.expected_speed_rpm
     assert a.running.speed_band_rpm == pytest.approx(share * slip_rpm)
+
+
+# ----------------------------------------------------------------------------- load
+
+@pytest.mark.parametrize("load_type", ["centrifugal", "constant-torque"])
+def test_a_460_v_motor_at_rated_load_on_480_v_is_compatible(load_type):
+    # 480 V is the normal system for 460 V motors [ANSI C84.1]; +4.3 % is inside NEMA MG 1
+    # 12.44 [NEMA MG 1-2016 §12.44]: at rated load the motor is compatible, no margin left.
+    m = machine(NEMA_20HP, load={"type": load_type, "power": "20 hp"})
+    a = assess(m, site(**NEMA_SITE))
+    assert a.verdict == "compatible"
+    assert a.running.load.fraction == pytest.approx(1.0)
+    assert "0 % margin left" in next(f.message for f in a.findings if f.code == "load-fraction")
+
+
+def test_a_400_v_motor_at_rated_load_on_415_v_zone_a_is_compatible():
+    # 415 / 400 = +3.75 %, zone A [IEC 60034-1:2022 §7.3]: rated load is carried.
+    m = machine(IEC_11KW, load={"type": "centrifugal", "power": "11 kW"})
+    a = assess(m, site(frequency="50 Hz", voltage="415 V", standard="IEC"))
+    assert a.verdict == "compatible"
+    assert result_dict(a)["load_margin"] == pytest.approx(0.0)
+
+
+def test_a_load_over_the_derated_output_is_an_overload_with_the_shortfall_shown():
+    # 2000 m, 40 degC: 0.94 of rated (common practice, no published source); 11 kW asked of 10.34 kW.
+    m = machine(IEC_11KW, load={"type": "constant-torque", "power": "11 kW"})
+    a = assess(m, site(frequency="50 Hz", voltage="400 V", standard="IEC", altitude="2000 m"))
+    overload = next(f for f in a.findings if f.code == "load-overload")
+    assert overload.severity == "problem"
+    assert "overloaded by" in overload.message
