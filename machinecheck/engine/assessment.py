@@ -150,6 +150,9 @@ class OperatingPoint:
     current_a: float | None
     power_factor: float | None
     efficiency: float | None
+    #: where the breakdown torque comes from: the datasheet's circuit or breakdown torque, or
+    #: an estimate (a typical ratio for the design); None without a circuit
+    breakdown_basis: str | None = None
 
 
 @dataclass(frozen=True, slots=True)

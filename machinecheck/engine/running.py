@@ -182,7 +182,7 @@ def _operating_point(machine: Machine, choice: RatingChoice, supply: Supply, n_s
     n_rule = speed_physics.slip_rule_speed(n_s, rated_slip, t_rated, k, t0,
                                            loads.TORQUE_EXPONENT[load_type], n0)
     tau = None if n_rule is None else load_torque(n_rule) / t_rated
-    circuit, unavailable = _estimate_circuit(machine, choice)
+    circuit, unavailable, breakdown_basis = _estimate_circuit(machine, choice)
     speed, stalled, valid = n_rule, n_rule is None, True
     slip = load_nm = breakdown_nm = stall_nm = margin = current = pf = eta = None
     if circuit is None:
@@ -206,26 +206,57 @@ def _operating_point(machine: Machine, choice: RatingChoice, supply: Supply, n_s
         circuit=circuit, circuit_unavailable=unavailable, stalled=stalled, speed_rpm=speed,
         slip=slip, load_torque_nm=load_nm, breakdown_torque_nm=breakdown_nm,
         stall_torque_nm=stall_nm, breakdown_margin=margin, current_a=current, power_factor=pf,
-        efficiency=eta)
+        efficiency=eta, breakdown_basis=breakdown_basis)
 
 
-def _estimate_circuit(machine: Machine,
-                      choice: RatingChoice) -> tuple[circuit_physics.Circuit | None, str | None]:
-    """(the rating set's equivalent circuit, or None with the reason when it has one)."""
+def _estimate_circuit(machine: Machine, choice: RatingChoice
+                      ) -> tuple[circuit_physics.Circuit | None, str | None, str | None]:
+    """(the rating set's equivalent circuit, or None with the reason when it has one, and
+    where its breakdown torque comes from): the datasheet's circuit when all five parameters
+    are given, else the nameplate estimate fitted to the datasheet's breakdown torque, or to a
+    typical one for the design (an estimate)."""
     rating, c = choice.rating, choice.connection
     if machine.kind != "induction-motor" or machine.phases != 3:
-        return None, None  # the estimate covers three-phase induction motors
+        return None, None, None  # the estimate covers three-phase induction motors
     assert rating.power_w is not None and rating.speed_rpm is not None  # the caller checked
-    current = c.current_a
-    if c.is_range and current is not None and choice.rated_voltage_v != c.voltage_v:
-        current = current_physics.current_at_site(current, c.voltage_v, choice.rated_voltage_v)
+    given = machine.circuit
+    params = () if given is None else tuple(
+        v for v in (given.r1_ohm, given.r2_ohm, given.x1_ohm, given.x2_ohm, given.xm_ohm)
+        if v is not None)
     try:
+        if len(params) == 5:
+            r1, r2, x1, x2, xm = params
+            return circuit_physics.from_parameters(
+                r1, r2, x1, x2, xm, rating.frequency_hz, choice.poles, rating.power_w,
+                rating.speed_rpm, choice.rated_voltage_v), None, "datasheet equivalent circuit"
+        current = c.current_a
+        if c.is_range and current is not None and choice.rated_voltage_v != c.voltage_v:
+            current = current_physics.current_at_site(current, c.voltage_v,
+                                                      choice.rated_voltage_v)
+        ratio = _breakdown_ratio(rating)
+        design = machine.design_letter
+        if ratio is None:
+            typical, taken = circuit_physics.typical_breakdown_ratio(design)
+            basis = (f"estimate: typical breakdown torque {typical:g} x rated for design "
+                     f"{taken}; ask the maker for the torque curve")
+        else:
+            basis = f"datasheet breakdown torque {ratio:.2f} x rated"
         return circuit_physics.estimate(
             rating.power_w, choice.rated_voltage_v, rating.frequency_hz, choice.poles,
             rating.speed_rpm, current, rating.power_factor, rating.efficiency,
-            machine.design_letter), None
+            design, breakdown_ratio=ratio), None, basis
     except DomainError as exc:
-        return None, str(exc)
+        return None, str(exc), None
+
+
+def _breakdown_ratio(rating: Rating) -> float | None:
+    """The datasheet's breakdown torque over the rated torque, when it gives one."""
+    if rating.breakdown_torque_pu is not None:
+        return rating.breakdown_torque_pu
+    if rating.breakdown_torque_nm is not None and rating.power_w and rating.speed_rpm:
+        return rating.breakdown_torque_nm / speed_physics.shaft_torque(rating.power_w,
+                                                                       rating.speed_rpm)
+    return None
 
 
 def _load_at_site(load_type: str, curve: tuple[str, float, float], speed_rpm: float,

@@ -63,6 +63,7 @@ def result_dict(a: Assessment, *, explain: bool = False) -> dict[str, Any]:
         "breakdown_torque_margin": (None if operating is None
                                     else _round(operating.breakdown_margin, 2)),
         "operating_point_basis": None if operating is None else operating.basis,
+        "breakdown_torque_basis": None if operating is None else operating.breakdown_basis,
         "rule_speed_rpm": None if operating is None else _round(operating.rule_speed_rpm, 1),
         "star_delta_possible": running.star_delta_possible,
         "locked_rotor_current_a": None if lrc is None else {

@@ -4,6 +4,7 @@ from __future__ import annotations
 
 from ..engine.assessment import Finding, RatingChoice, Running, Supply
 from ..model import Machine
+from .operating import torque_pair
 
 #: Fraction of head or flow that may be lost before the duty is in doubt (common practice, no
 #: published source).
@@ -28,9 +29,11 @@ def check(machine: Machine, choice: RatingChoice, supply: Supply,
         return ()
     op = running.operating
     if op is not None and op.stalled:
-        detail = ("" if op.breakdown_torque_nm is None else
-                  f" ({op.stall_torque_nm:.0f} N m against a breakdown torque of "
-                  f"{op.breakdown_torque_nm:.0f} N m)")
+        detail = ""
+        if op.breakdown_torque_nm is not None and op.stall_torque_nm is not None:
+            breakdown, needed = torque_pair(op.breakdown_torque_nm, op.stall_torque_nm)
+            detail = (f" ({needed} N m against a breakdown torque of {breakdown} N m; "
+                      f"{op.breakdown_basis})")
         return (Finding("load-overload", "problem",
                         f"the load needs more torque than the motor can give at this supply"
                         f"{detail}: it would stall or not reach speed"),)

@@ -250,3 +250,42 @@ def test_a_load_over_the_derated_output_is_an_overload_with_the_shortfall_shown(
     overload = next(f for f in a.findings if f.code == "load-overload")
     assert overload.severity == "problem"
     assert "overloaded by" in overload.message
+
+
+# ----------------------------------------------------------------------------- breakdown torque
+
+def _breakdown_ratio(a):
+    from machinecheck.physics.speed import shaft_torque
+    op = a.running.operating
+    rated = shaft_torque(a.rating.power_w, a.rating.speed_rpm)
+    return op.breakdown_torque_nm / rated
+
+
+def test_the_datasheet_breakdown_torque_is_used_and_named():
+    # breakdown torque 300 % of rated from the datasheet: the fitted circuit gives 3.0 x at the
+    # rated supply (its own definition, [Chapman 2005 ch. 7] breakdown of the circuit).
+    a = assess(machine({**IEC_11KW, "breakdown_torque": "300 %"}), site(**IEC_SITE))
+    assert _breakdown_ratio(a) == pytest.approx(3.0, rel=1e-3)
+    assert a.running.operating.breakdown_basis == "datasheet breakdown torque 3.00 x rated"
+    assert result_dict(a)["breakdown_torque_basis"].startswith("datasheet")
+
+
+def test_without_datasheet_torques_the_breakdown_is_an_estimate_and_says_so():
+    # typical 2.5 x for design B/N (common practice, no published source).
+    a = assess(machine(IEC_11KW), site(**IEC_SITE))
+    assert _breakdown_ratio(a) == pytest.approx(2.5, rel=1e-3)
+    assert result_dict(a)["breakdown_torque_basis"].startswith("estimate: typical breakdown "
+                                                              "torque 2.5 x rated")
+
+
+def test_datasheet_circuit_parameters_are_used_as_given():
+    # [Chapman 2005 Ex. 7-5] (from memory): 460 V, 25 hp, 4-pole, 60 Hz, Y; R1 0.641, R2 0.332,
+    # X1 1.106, X2 0.464, XM 26.3 ohm; 2.2 % slip (1760 rpm).
+    plate = {"frequency": "60 Hz", "voltage": "460 V", "power": "25 hp", "speed": "1760 rpm"}
+    circuit = {"r1": "0.641 ohm", "r2": "0.332 ohm", "x1": "1.106 ohm", "x2": "0.464 ohm",
+               "xm": "26.3 ohm"}
+    a = assess(machine(plate, circuit=circuit), site(**NEMA_SITE))
+    c = a.running.operating.circuit
+    assert (c.r1_ohm, c.r2_ohm, c.x1_ohm, c.x2_ohm, c.xm_ohm) == (0.641, 0.332, 1.106, 0.464,
+                                                                  26.3)
+    assert a.running.operating.breakdown_basis == "datasheet equivalent circuit"
