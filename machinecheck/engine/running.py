@@ -58,8 +58,12 @@ def run(machine: Machine, choice: RatingChoice, supply: Supply) -> Running:
     available_w: float | None = None
     available_va: float | None = None
     if supply.phases_ok and machine.is_generator:
+        # the rated kVA is never raised (not even at a higher frequency); the derates lower it
         available_va = (rating.apparent_power_va or 0.0) * derates.combined
         available_w = available_va * (rating.power_factor or GENERATOR_POWER_FACTOR)
+        prime_mover_w = _prime_mover_power(supply)
+        if prime_mover_w is not None:
+            available_w = min(available_w, prime_mover_w)
     elif supply.phases_ok:
         available_w = rated_power_w * derates.combined
 
@@ -110,6 +114,12 @@ def run(machine: Machine, choice: RatingChoice, supply: Supply) -> Running:
         efficiency_check=class_check)
 
 
+def _prime_mover_power(supply: Supply) -> float | None:
+    """The prime mover's power stated for the site's generator source, or None."""
+    source = supply.site.supply_source
+    return None if source is None else source.prime_mover_power_w
+
+
 # ----------------------------------------------------------------------------- derates
 
 def _derates(machine: Machine, choice: RatingChoice, supply: Supply) -> Derates:
@@ -117,6 +127,10 @@ def _derates(machine: Machine, choice: RatingChoice, supply: Supply) -> Derates:
     voltage, voltage unbalance, and altitude with ambient."""
     site = supply.site
     factors: list[tuple[str, float]] = []
+    if supply.rerated and machine.is_generator:
+        # a generator's fan turns with its shaft: slower at the lower frequency
+        factors.append(("cooling", frequency.cooling_derating(supply.frequency_ratio,
+                                                              machine.cooling)))
     if supply.rerated and not machine.is_generator:
         factors += [
             ("frequency", frequency.frequency_output_factor(supply.frequency_ratio,

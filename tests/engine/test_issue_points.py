@@ -289,3 +289,27 @@ def test_datasheet_circuit_parameters_are_used_as_given():
     assert (c.r1_ohm, c.r2_ohm, c.x1_ohm, c.x2_ohm, c.xm_ohm) == (0.641, 0.332, 1.106, 0.464,
                                                                   26.3)
     assert a.running.operating.breakdown_basis == "datasheet equivalent circuit"
+
+
+# ----------------------------------------------------------------------------- generators
+
+GENSET_50 = {"frequency": "50 Hz", "voltage": "400 V", "power": "500 kVA", "speed": "1500 rpm"}
+
+
+def test_a_50_hz_set_at_60_hz_keeps_its_rated_kva_and_asks_for_the_prime_mover():
+    # 400 V 50 Hz set on 480 V 60 Hz: rated flux at 480 V, but the kVA is not raised without
+    # the prime mover's power (common practice, no published source).
+    m = machine(GENSET_50, kind="synchronous-generator", poles=4)
+    a = assess(m, site(frequency="60 Hz", voltage="480 V", standard="NEMA"))
+    assert a.running.available_apparent_power_va == pytest.approx(500e3)
+    assert "generator-prime-mover-power" in codes(a, "warning")
+
+
+def test_a_stated_prime_mover_power_limits_the_real_output():
+    # 500 kVA x 0.8 = 400 kW electrical, prime mover 350 kW: 350 kW at most (power balance).
+    m = machine(GENSET_50, kind="synchronous-generator", poles=4)
+    s = site(frequency="60 Hz", voltage="480 V", standard="NEMA",
+             source={"kind": "generator", "rating": "500 kVA", "prime_mover_power": "350 kW",
+                     "subtransient_reactance": "15 %"})
+    a = assess(m, s)
+    assert a.running.available_power_w == pytest.approx(350e3)
