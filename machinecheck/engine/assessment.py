@@ -253,6 +253,10 @@ class Running:
     efficiency_class_minimum: float | None
     #: the marked class beside the class the plate efficiency reaches (None: out of scope)
     efficiency_check: ClassCheck | None = None
+    #: why the machine cannot run at this site (wrong phases, supply outside the tolerance,
+    #: stalled, frequency too far to re-rate); None when it can. Reports then show no running
+    #: figures.
+    not_running_reason: str | None = None
 
 
 # ----------------------------------------------------------------------------- assessment

@@ -16,6 +16,7 @@ from ..physics import environment, frequency, loads, nec, starting, unbalance
 from ..physics import speed as speed_physics
 from ..physics.constants import (
     GENERATOR_POWER_FACTOR,
+    RERATING_RANGE,
     SERVICE_FACTOR_FREQUENCY_BAND,
     SERVICE_FACTOR_MIN_DERATE,
     SERVICE_FACTOR_VOLTAGE_BAND,
@@ -111,7 +112,29 @@ def run(machine: Machine, choice: RatingChoice, supply: Supply) -> Running:
         efficiency_class=(machine.efficiency_class if class_check is None
                           else class_check.marked or class_check.computed),
         efficiency_class_minimum=None if minimum is None or math.isnan(minimum) else minimum,
-        efficiency_check=class_check)
+        efficiency_check=class_check,
+        not_running_reason=_not_running(machine, supply, operating))
+
+
+def _not_running(machine: Machine, supply: Supply,
+                 operating: OperatingPoint | None) -> str | None:
+    """Why the machine cannot run at this site, or None when it can."""
+    site = supply.site
+    if not supply.phases_ok:
+        return (f"a {machine.phases}-phase machine cannot be connected to a {site.phases}-phase "
+                "supply")
+    low, high = RERATING_RANGE
+    if supply.rerated and not low <= supply.frequency_ratio <= high:
+        return (f"{site.frequency_hz:g} Hz is too far from the rated frequency to re-rate "
+                "the machine")
+    t = supply.tolerance
+    if not t.within:
+        where = ("NEMA MG 1 12.44 limits" if t.standard == "NEMA" and not machine.is_generator
+                 else "IEC 60034-1 zone B")
+        return f"the supply is outside {where}"
+    if operating is not None and operating.stalled:
+        return "the motor stalls: the torque asked of it is above its breakdown torque"
+    return None
 
 
 def _prime_mover_power(supply: Supply) -> float | None:

@@ -84,9 +84,23 @@ def result_dict(a: Assessment, *, explain: bool = False) -> dict[str, Any]:
     }
     if a.machine.is_generator:
         data["available_apparent_power_kva"] = _kilo(running.available_apparent_power_va, 2)
+    data["not_running_reason"] = running.not_running_reason
+    if running.not_running_reason is not None:
+        for key in RUNNING_KEYS:
+            if key in data:
+                data[key] = None
     if explain:
         data["working"] = list(a.working)
     return data
+
+
+#: The figures of a machine running at the site: None in the result when it cannot run there
+#: (``not_running_reason`` says why).
+RUNNING_KEYS = ("expected_speed_rpm", "available_power_kw", "load_power_kw",
+                "full_load_current_a", "speed_tolerance_rpm", "service_factor_at_site",
+                "operating_current_a", "operating_power_factor", "operating_efficiency",
+                "breakdown_torque_margin", "rule_speed_rpm", "load_fraction", "flow_ratio",
+                "head_ratio", "load_demand_kw", "load_margin", "available_apparent_power_kva")
 
 
 def _finding(f: Finding) -> dict[str, str]:
@@ -129,7 +143,7 @@ def number(value: float | None, fmt: str) -> str:
 def output_text(a: Assessment) -> str:
     """Available over rated output, kW ("-" when the machine cannot run here)."""
     available = a.running.available_power_w
-    if available is None:
+    if available is None or a.running.not_running_reason is not None:
         return "-"
     return f"{available / 1000:.1f} / {a.running.rated_power_w / 1000:.1f}"
 
@@ -142,7 +156,9 @@ SITE_COLUMNS = ("machine", "verdict", "n_s rpm", "speed rpm", "output kW", "FLC 
 def site_row(a: Assessment) -> list[str]:
     """The cells of one pair in the per-site table (texts, not yet escaped)."""
     running = a.running
+    runs = running.not_running_reason is None
     return [a.machine.id, a.verdict, f"{running.synchronous_speed_rpm:.0f}",
-            number(running.expected_speed_rpm, ".0f"), output_text(a),
-            number(running.currents.full_load_a, ".1f"), number(running.currents.load_a, ".1f"),
+            number(running.expected_speed_rpm if runs else None, ".0f"), output_text(a),
+            number(running.currents.full_load_a if runs else None, ".1f"),
+            number(running.currents.load_a if runs else None, ".1f"),
             f"{a.choice.flux_ratio:.3f}"]

@@ -313,3 +313,40 @@ def test_a_stated_prime_mover_power_limits_the_real_output():
                      "subtransient_reactance": "15 %"})
     a = assess(m, s)
     assert a.running.available_power_w == pytest.approx(350e3)
+
+
+# ----------------------------------------------------------------------------- not running
+
+def test_a_stalled_motor_shows_no_running_figures_and_says_why():
+    # a constant torque of 2.6 x rated against a breakdown of 2.5 x (typical, common practice):
+    # no running point [Chapman 2005 ch. 7].
+    m = machine(IEC_11KW, load={"type": "constant-torque", "power": "28.6 kW"})
+    a = assess(m, site(**IEC_SITE))
+    data = result_dict(a)
+    assert a.verdict == "incompatible"
+    assert data["not_running_reason"].startswith("the motor stalls")
+    for key in ("expected_speed_rpm", "available_power_kw", "full_load_current_a",
+                "operating_current_a", "load_fraction"):
+        assert data[key] is None, key
+
+
+def test_a_three_phase_motor_on_a_single_phase_supply_shows_no_output():
+    a = assess(machine(IEC_11KW), site(frequency="50 Hz", voltage="230 V", phases=1,
+                                       standard="IEC"))
+    data = result_dict(a)
+    assert data["available_power_kw"] is None and data["full_load_current_a"] is None
+    assert "cannot be connected" in data["not_running_reason"]
+
+
+def test_a_supply_outside_zone_b_shows_no_running_figures():
+    # 460 V on 400 V is +15 %, outside zone B [IEC 60034-1:2022 §7.3].
+    a = assess(machine(IEC_11KW), site(frequency="50 Hz", voltage="460 V", standard="IEC"))
+    data = result_dict(a)
+    assert data["not_running_reason"] == "the supply is outside IEC 60034-1 zone B"
+    assert data["expected_speed_rpm"] is None
+
+
+def test_torques_are_shown_with_the_decimals_that_tell_them_apart():
+    from machinecheck.rules.operating import torque_pair
+    assert torque_pair(13.8, 14.2) == ("13.8", "14.2")   # "14 N m below 14 N m" never
+    assert torque_pair(12.0, 14.0) == ("12", "14")
