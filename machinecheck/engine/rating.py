@@ -14,18 +14,19 @@ from .supply import Offer, offers
 _FREQUENCY_WEIGHT = 0.001
 
 
-def choose(machine: Machine, site: Site) -> tuple[RatingChoice, Offer]:
+def choose(machine: Machine, site: Site, poles: int | None = None) -> tuple[RatingChoice, Offer]:
     """The rating set, connection and offered voltage whose V/f is nearest the rated V/f.
 
     A rating set for the site's nominal frequency (50 or 60 Hz, whatever its variation) beats
     re-rating from another one; among the candidates the smallest |ln k| wins, the smaller
-    frequency change breaking ties. The first candidate wins an exact tie.
+    frequency change breaking ties. The first candidate wins an exact tie. ``poles`` keeps the
+    rating sets of one speed of a multispeed plate.
     """
-    candidates = [r for r in machine.ratings
-                  if not is_nominal_change(site.frequency_hz, r.frequency_hz)]
+    ratings = [r for r in machine.ratings if poles is None or r.poles == poles]
+    candidates = [r for r in ratings if not is_nominal_change(site.frequency_hz, r.frequency_hz)]
     offered = offers(machine, site)
     best: tuple[float, Rating, Connection, Offer, float, float] | None = None
-    for rating in candidates or machine.ratings:
+    for rating in candidates or ratings:
         f_ratio = site.frequency_hz / rating.frequency_hz
         for connection in rating.connections:
             for offer in offered:

@@ -350,3 +350,18 @@ def test_torques_are_shown_with_the_decimals_that_tell_them_apart():
     from machinecheck.rules.operating import torque_pair
     assert torque_pair(13.8, 14.2) == ("13.8", "14.2")   # "14 N m below 14 N m" never
     assert torque_pair(12.0, 14.0) == ("12", "14")
+
+
+# ----------------------------------------------------------------------------- multispeed
+
+def test_a_multispeed_plate_is_judged_per_speed():
+    # 4 and 8 poles on one 460 V 60 Hz plate: n_s = 120 f / p = 1800 and 900 rpm
+    # [IEC 60034-1:2022] definitions; each speed on its own rating set.
+    m = machine([NEMA_20HP,
+                 {**NEMA_20HP, "power": "5 hp", "speed": "870 rpm", "current": "9 A"}],
+                load={"type": "constant-torque", "power": "10 hp"})
+    a = assess(m, site(**NEMA_SITE))
+    summary = next(f for f in a.findings if f.code == "multispeed")
+    assert "4 poles (1800 rpm) compatible" in summary.message
+    assert "8 poles (900 rpm) incompatible" in summary.message
+    assert a.verdict == "incompatible" and a.choice.poles == 8
