@@ -365,3 +365,31 @@ def test_a_multispeed_plate_is_judged_per_speed():
     assert "4 poles (1800 rpm) compatible" in summary.message
     assert "8 poles (900 rpm) incompatible" in summary.message
     assert a.verdict == "incompatible" and a.choice.poles == 8
+
+
+# ----------------------------------------------------------------------------- the points fleet
+
+def test_the_points_fleet_gives_the_verdicts_the_standards_give():
+    # One pair for each point; sources as in the tests above: [ANSI C84.1] 480 V feeds 460 V
+    # motors, [IEC 60034-1:2022 §7.3] zones A/B, [IEC 60034-30-1:2014 §6] marked class.
+    from pathlib import Path
+
+    from machinecheck.inputs.catalog import load_catalog, load_sites
+    here = Path(__file__).parent
+    machines = {m.id: m for m in load_catalog(here / "fleet_issue_points.toml").machines}
+    sites = {s.id: s for s in load_sites(here / "sites_issue_points.toml")}
+    expected = {
+        ("p1-pump-460v", "nema-480"): "compatible",
+        ("p1-conveyor-400v", "iec-415"): "compatible",
+        ("p3-fan-marked-ie2", "iec-400-ie3"): "incompatible",
+        ("p4-press-design-d", "nema-480"): "compatible",
+        ("p5-single-phase-230v", "wye-4-wire"): "compatible",
+        ("p5-single-phase-230v", "wye-3-wire"): "incompatible",
+        ("p7-crusher-bd-160", "iec-380"): "conditional",
+        ("p8-pump-50hz", "island-47"): "incompatible",
+        ("p8-pump-50hz", "genset-3pct"): "conditional",
+        ("p17-two-phase-pump", "two-phase-480"): "compatible",
+        ("p17-two-phase-pump", "nema-480"): "incompatible",
+    }
+    for (m, s), verdict in expected.items():
+        assert assess(machines[m], sites[s]).verdict == verdict, (m, s)
