@@ -12,9 +12,18 @@ from ..physics.tolerance import is_normal_pairing
 
 def check(machine: Machine, choice: RatingChoice, supply: Supply,
           running: Running) -> tuple[Finding, ...]:
-    if supply.rerated or not supply.phases_ok:
+    if not supply.phases_ok:
         return ()
     t = supply.tolerance
+    if supply.rerated:
+        # the flux rules judge the voltage of a re-rated machine; a stated frequency variation
+        # of the new nominal is judged with it here, in the same zones
+        if not supply.site.frequency_variation or t.zone == "A" or (
+                t.standard == "NEMA" and t.within):
+            return ()
+        found_rerated = (_nema(choice, supply, t) if t.standard == "NEMA"
+                         and not machine.is_generator else _iec(machine, choice, supply, t))
+        return tuple(found_rerated)
     c = choice.connection
     found: list[Finding] = []
     if machine.phases == 3 and is_normal_pairing(supply.supply_voltage_v, c.voltage_v):

@@ -393,3 +393,13 @@ def test_the_points_fleet_gives_the_verdicts_the_standards_give():
     }
     for (m, s), verdict in expected.items():
         assert assess(machines[m], sites[s]).verdict == verdict, (m, s)
+
+
+def test_a_re_rated_machine_on_a_site_with_a_frequency_variation_is_judged_in_the_zones():
+    # 60 Hz 460 V plate on 50 Hz 400 V: k = (400/460)/(50/60) = 1.043 [NEMA MG 1-2016 §12.44.2]
+    # judged as dU +4.3 %; with 50 Hz +-3 %: df -3 % puts the point outside zone A and, with
+    # |dU - df| = 7.3 % and df +3 %, inside zone B [IEC 60034-1:2022 §7.3].
+    a = assess(machine(NEMA_20HP), site(frequency="50 Hz", voltage="400 V", standard="IEC",
+                                        frequency_variation="3 %"))
+    assert a.supply.rerated is True
+    assert "tolerance-zone-b" in codes(a, "warning")
