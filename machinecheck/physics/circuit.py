@@ -407,6 +407,10 @@ def operating_point(c: Circuit, voltage_v: float, frequency_hz: float, slip: flo
                           t_max, s_max)
 
 
+#: Slips tried on the stable branch before a load is taken to stall the motor.
+_STALL_SCAN = 48
+
+
 def solve(c: Circuit, voltage_v: float, frequency_hz: float,
           load_torque: Callable[[float], float]) -> OperatingPoint | None:
     """Operating point where the shaft torque meets the load on the stable branch.
@@ -466,7 +470,16 @@ def solve(c: Circuit, voltage_v: float, frequency_hz: float,
     hi = min(peak[1], 1.0)
     f_hi = excess(hi)
     if f_hi < 0.0:
-        return None
+        # a load whose torque rises as the speed falls (constant power) can exceed the
+        # breakdown torque at the breakdown slip and still meet the motor at a smaller slip:
+        # look for a slip on the stable branch with torque to spare before calling a stall
+        for i in range(1, _STALL_SCAN + 1):
+            trial = hi * (1e-4 / hi) ** (i / _STALL_SCAN) if hi > 1e-4 else hi
+            if excess(trial) >= 0.0:
+                hi, f_hi = trial, excess(trial)
+                break
+        else:
+            return None
     lo = 1e-6
     asked_lo = asked(lo)
     f_lo = induced(lo) - asked_lo

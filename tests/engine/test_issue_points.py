@@ -403,3 +403,16 @@ def test_a_re_rated_machine_on_a_site_with_a_frequency_variation_is_judged_in_th
                                         frequency_variation="3 %"))
     assert a.supply.rerated is True
     assert "tolerance-zone-b" in codes(a, "warning")
+
+
+def test_a_design_d_motor_re_rated_to_50_hz_finds_its_running_point():
+    # 60 Hz Design D on 400 V 50 Hz, output derated to 0.744: the constant-power load meets the
+    # motor near the slip rule's 1316 rpm [NEMA MG 1-2016 §12.44.2] (torque ~ V^2/f^2); its
+    # torque at the breakdown slip is no stall when a stable point lies below it
+    # [Chapman 2005 ch. 7] (stable branch 0 < s < s_max).
+    m = machine({"frequency": "60 Hz", "voltage": "460 V", "power": "10 hp",
+                 "speed": "1575 rpm", "current": "14 A", "efficiency": 0.85,
+                 "power_factor": 0.8}, design_letter="D")
+    a = assess(m, site(**IEC_SITE, wires=3))
+    assert "motor-stall" not in codes(a)
+    assert a.running.expected_speed_rpm == pytest.approx(1316, abs=10)
