@@ -40,7 +40,7 @@ NEAR_LIMIT_UNDERVOLTAGE = -0.075
 
 #: Slip tolerance of induction motors, share of the rated slip: +-30 % below 1 kW, +-20 % at and
 #: above 1 kW (IEC 60034-1:2022 tolerance table, "slip" row; the same +-20 % in NEMA MG 1-2016
-#: §12.47 for 1 hp and up, clause number from memory).
+#: §12.46 likewise, clause number from memory).
 SLIP_TOLERANCE_SMALL = 0.30
 SLIP_TOLERANCE = 0.20
 #: Rated output [W] at and above which the smaller slip tolerance applies.
