@@ -22,6 +22,7 @@ from typing import Literal
 
 from ..model import Connection, Machine, Rating, Site
 from ..physics.circuit import Circuit
+from ..physics.efficiency import ClassCheck
 
 Severity = Literal["info", "warning", "problem"]
 Verdict = Literal["compatible", "conditional", "incompatible"]
@@ -58,7 +59,8 @@ class Tolerance:
 
     ``basis`` is "rated", or "re-rated" when judged as flux at a new frequency. IEC gives a
     ``zone`` ("A", "B" or None outside); NEMA gives ``combined_variation`` (|dV| + |df|).
-    ``worst_voltage_deviation`` is the worst point over the site's measured voltage range.
+    ``worst_voltage_deviation`` and ``worst_frequency_deviation`` are the worst point over the
+    site's measured voltage range and stated frequency variation, judged together.
     """
 
     standard: str
@@ -69,6 +71,7 @@ class Tolerance:
     zone: str | None
     combined_variation: float | None
     worst_voltage_deviation: float
+    worst_frequency_deviation: float = 0.0
 
 
 @dataclass(frozen=True, slots=True)
@@ -147,13 +150,23 @@ class OperatingPoint:
     current_a: float | None
     power_factor: float | None
     efficiency: float | None
+    #: where the breakdown torque comes from: the datasheet's circuit or breakdown torque, or
+    #: an estimate (a typical ratio for the design); None without a circuit
+    breakdown_basis: str | None = None
 
 
 @dataclass(frozen=True, slots=True)
 class LoadAtSite:
-    """The driven load at the running speed: speed ratio to its rated speed, power drawn,
-    share of the available output, and the flow, head and power ratios it gives (affinity
-    laws; flow alone for a constant-torque load)."""
+    """The driven load at the site.
+
+    ``power_w`` is drawn at the running speed (the flow, head and power ratios follow it,
+    affinity laws; flow alone for a constant-torque load). ``demand_w`` is the load's power at
+    the speed the site frequency sets with the rated slip (``demand_speed_rpm``: the load's
+    rated speed times the frequency ratio): the load is judged on it against the available
+    output, so that the few rpm a motor gains or loses with its voltage inside the zone are
+    not taken for a change of load. ``fraction`` is ``demand_w`` over the available output,
+    ``margin`` what is left of it (negative: overloaded).
+    """
 
     type: str
     reference_speed_rpm: float
@@ -163,6 +176,9 @@ class LoadAtSite:
     flow_ratio: float | None
     head_ratio: float | None
     power_ratio: float | None
+    demand_w: float = 0.0
+    demand_speed_rpm: float = 0.0
+    margin: float | None = None
 
 
 @dataclass(frozen=True, slots=True)
@@ -199,6 +215,9 @@ class Currents:
     power_hp: float | None
     conductor_a: float | None
     locked_rotor: LockedRotorCurrent | None
+    #: which rule of NEC 430.6(A)(1) set the current for conductors and short-circuit
+    #: protection (the table, or the nameplate and why); None when not judged (IEC sites)
+    code_rule: str | None = None
 
 
 @dataclass(frozen=True, slots=True)
@@ -227,8 +246,17 @@ class Running:
     service_factor: float
     service_factor_at_site: float
     star_delta_possible: bool | None
+    #: the motor's IE class: the marked class, or when none is marked the class its plate
+    #: efficiency reaches; the marked class is never replaced
     efficiency_class: str | None
+    #: nominal minimum efficiency of the marked class, None when unmarked or not carried
     efficiency_class_minimum: float | None
+    #: the marked class beside the class the plate efficiency reaches (None: out of scope)
+    efficiency_check: ClassCheck | None = None
+    #: why the machine cannot run at this site (wrong phases, supply outside the tolerance,
+    #: stalled, frequency too far to re-rate); None when it can. Reports then show no running
+    #: figures.
+    not_running_reason: str | None = None
 
 
 # ----------------------------------------------------------------------------- assessment

@@ -87,7 +87,7 @@ def _operating(op: OperatingPoint, supply: Supply, running: Running) -> list[str
     lines.append(f"equivalent circuit (per phase, star, at {c.frequency_hz:g} Hz): "
                  f"R1 {c.r1_ohm:.4g}, X1 {c.x1_ohm:.4g}, R2' {c.r2_ohm:.4g}, "
                  f"X2' {c.x2_ohm:.4g}, Xm {c.xm_ohm:.4g} ohm; rotational loss "
-                 f"{c.rotational_loss_w:.0f} W")
+                 f"{c.rotational_loss_w:.0f} W; breakdown torque: {op.breakdown_basis}")
     if op.stalled:
         lines.append(f"  at {v:.0f} V {f:g} Hz: breakdown torque {op.breakdown_torque_nm:.1f} N m "
                      f"is below the {op.stall_torque_nm:.1f} N m asked of it: no stable running "
@@ -123,7 +123,9 @@ def _currents(machine: Machine, choice: RatingChoice, supply: Supply, currents: 
     if currents.code_a is not None and currents.code_hp is not None:
         lines.append(f"NEC table current: {currents.power_hp:.2f} hp -> {currents.code_hp:g} hp "
                      f"-> {currents.code_a:g} A; conductors 125 % = "
-                     f"{currents.conductor_a:.1f} A")
+                     f"{currents.conductor_a:.1f} A ({currents.code_rule})")
+    elif currents.code_rule is not None:
+        lines.append(f"NEC 430.6(A)(1): {currents.code_rule}")
     return lines
 
 

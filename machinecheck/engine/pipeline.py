@@ -11,18 +11,47 @@ Starting, protection and remedies join as stages between 3 and 4.
 
 from __future__ import annotations
 
+import dataclasses
 from collections.abc import Callable, Iterable
 
 from ..model import Machine, Site
 from ..rules import RULES
 from . import rating, running, supply
-from .assessment import Assessment, Finding, verdict_of
+from .assessment import VERDICTS, Assessment, Finding, verdict_of
 from .explain import working
 
 
+def speeds(machine: Machine) -> tuple[int, ...]:
+    """The pole counts of a multispeed plate's speeds, in plate order; () for one speed."""
+    found: list[int] = []
+    for r in machine.ratings:
+        if r.poles is not None and r.poles not in found:
+            found.append(r.poles)
+    return tuple(found) if len(found) > 1 else ()
+
+
 def assess(machine: Machine, site: Site, *, explain: bool = False) -> Assessment:
-    """Check one machine against one site supply."""
-    choice, offer = rating.choose(machine, site)
+    """Check one machine against one site supply.
+
+    A multispeed plate is judged speed by speed, each on its own rating set; the result is
+    the worst speed's, with a finding that gives the verdict of every speed.
+    """
+    poles = speeds(machine)
+    if not poles:
+        return _assess(machine, site, None, explain)
+    each = [_assess(machine, site, p, explain) for p in poles]
+    worst = max(each, key=lambda a: VERDICTS.index(a.verdict))
+    text = "; ".join(f"{a.choice.poles} poles ({a.running.synchronous_speed_rpm:.0f} rpm) "
+                     f"{a.verdict}" for a in each)
+    summary = Finding("multispeed", "info",
+                      f"multispeed plate judged per speed: {text}; figures shown for "
+                      f"{worst.choice.poles} poles")
+    return dataclasses.replace(worst, findings=(summary, *worst.findings))
+
+
+def _assess(machine: Machine, site: Site, poles: int | None, explain: bool) -> Assessment:
+    """One machine (one speed of a multispeed plate when ``poles`` is given) on one site."""
+    choice, offer = rating.choose(machine, site, poles)
     seen = supply.see(machine, site, choice, offer)
     at_site = running.run(machine, choice, seen)
     # the starting, protection and remedies records are built here, from these three, and

@@ -5,28 +5,28 @@ from __future__ import annotations
 import math
 
 from ..model import Connection, Machine, Rating, Site
+from ..physics.constants import is_nominal_change
 from ..physics.frequency import flux_ratio
 from .assessment import RatingChoice
-from .supply import Offer, in_frequency_band, offers
+from .supply import Offer, offers
 
 #: Weight of the frequency change against the flux error when ranking candidates: a tie-break.
 _FREQUENCY_WEIGHT = 0.001
 
 
-def choose(machine: Machine, site: Site) -> tuple[RatingChoice, Offer]:
+def choose(machine: Machine, site: Site, poles: int | None = None) -> tuple[RatingChoice, Offer]:
     """The rating set, connection and offered voltage whose V/f is nearest the rated V/f.
 
-    A rating set for the site frequency (within the standard's tolerance band) beats
+    A rating set for the site's nominal frequency (50 or 60 Hz, whatever its variation) beats
     re-rating from another one; among the candidates the smallest |ln k| wins, the smaller
-    frequency change breaking ties. The first candidate wins an exact tie.
+    frequency change breaking ties. The first candidate wins an exact tie. ``poles`` keeps the
+    rating sets of one speed of a multispeed plate.
     """
-    poles = machine.poles
-    assert poles is not None  # the catalog gives every machine its poles
-    candidates = [r for r in machine.ratings
-                  if in_frequency_band(site.frequency_hz / r.frequency_hz - 1.0, site.standard)]
+    ratings = [r for r in machine.ratings if poles is None or r.poles == poles]
+    candidates = [r for r in ratings if not is_nominal_change(site.frequency_hz, r.frequency_hz)]
     offered = offers(machine, site)
     best: tuple[float, Rating, Connection, Offer, float, float] | None = None
-    for rating in candidates or machine.ratings:
+    for rating in candidates or ratings:
         f_ratio = site.frequency_hz / rating.frequency_hz
         for connection in rating.connections:
             for offer in offered:
@@ -36,6 +36,8 @@ def choose(machine: Machine, site: Site) -> tuple[RatingChoice, Offer]:
                     best = (score, rating, connection, offer, reference, k)
     assert best is not None  # every rating has a connection and every site a voltage
     _, rating, connection, offer, reference, k = best
+    poles = rating.poles or machine.poles  # a multispeed plate gives each rating set its poles
+    assert poles is not None  # the catalog gives every machine its poles
     return RatingChoice(rating=rating, connection=connection, rated_voltage_v=reference,
                         flux_ratio=k, poles=poles), offer
 

@@ -5,6 +5,7 @@ Every figure comes from :mod:`machinecheck.physics`; this module only decides wh
 
 from __future__ import annotations
 
+import math
 from collections.abc import Callable
 
 from ..errors import DomainError
@@ -15,18 +16,19 @@ from ..physics import environment, frequency, loads, nec, starting, unbalance
 from ..physics import speed as speed_physics
 from ..physics.constants import (
     GENERATOR_POWER_FACTOR,
+    RERATING_RANGE,
     SERVICE_FACTOR_FREQUENCY_BAND,
     SERVICE_FACTOR_MIN_DERATE,
     SERVICE_FACTOR_VOLTAGE_BAND,
-    SLIP_TOLERANCE,
     STAR_DELTA_FLUX_BAND,
     STAR_DELTA_RATIO_SLACK,
     UNBALANCE_LIMIT,
     hp_from_w,
+    slip_tolerance,
     star_delta_ratio,
     synchronous_speed_rpm,
 )
-from ..physics.efficiency import efficiency_class_of, minimum_efficiency
+from ..physics.efficiency import ClassCheck, check_marked_class
 from .assessment import (
     Currents,
     Derates,
@@ -39,6 +41,9 @@ from .assessment import (
 )
 
 LoadTorque = Callable[[float], float]
+
+#: The NEC full-load current table for a winding of so many phases.
+TABLE_BY_PHASES = {1: "Table 430.248", 2: "Table 430.249", 3: "Table 430.250"}
 
 #: Connection names read as delta and as star (lower case).
 DELTA_NAMES = frozenset({"delta", "d", "Δ", "triangle", "dreieck", "low-delta"})
@@ -54,8 +59,12 @@ def run(machine: Machine, choice: RatingChoice, supply: Supply) -> Running:
     available_w: float | None = None
     available_va: float | None = None
     if supply.phases_ok and machine.is_generator:
+        # the rated kVA is never raised (not even at a higher frequency); the derates lower it
         available_va = (rating.apparent_power_va or 0.0) * derates.combined
         available_w = available_va * (rating.power_factor or GENERATOR_POWER_FACTOR)
+        prime_mover_w = _prime_mover_power(supply)
+        if prime_mover_w is not None:
+            available_w = min(available_w, prime_mover_w)
     elif supply.phases_ok:
         available_w = rated_power_w * derates.combined
 
@@ -74,9 +83,10 @@ def run(machine: Machine, choice: RatingChoice, supply: Supply) -> Running:
             operating = _operating_point(machine, choice, supply, n_s, load_curve)
             if operating is not None and operating.speed_rpm is not None:
                 expected = operating.speed_rpm
-                speed_band = SLIP_TOLERANCE * (n_s - expected)
+                speed_band = slip_tolerance(rated_power_w) * (n_s - expected)
         if machine.load is not None and load_curve is not None and expected is not None:
-            load = _load_at_site(machine.load.type, load_curve, expected, available_w)
+            load = _load_at_site(machine.load.type, load_curve, expected, available_w,
+                                 supply.frequency_ratio)
         currents = _motor_currents(machine, choice, supply, available_w, load, operating)
 
     sf = rating.service_factor or machine.service_factor
@@ -84,7 +94,8 @@ def run(machine: Machine, choice: RatingChoice, supply: Supply) -> Running:
              and min((v for _, v in derates.factors), default=1.0) >= SERVICE_FACTOR_MIN_DERATE
              and abs(supply.tolerance.voltage_deviation) <= SERVICE_FACTOR_VOLTAGE_BAND
              and abs(supply.frequency_ratio - 1.0) <= SERVICE_FACTOR_FREQUENCY_BAND)
-    efficiency_class, minimum = _efficiency(machine, rating, choice.poles)
+    class_check = _efficiency(machine, rating, choice.poles)
+    minimum = None if class_check is None else class_check.marked_minimum
     return Running(
         synchronous_speed_rpm=n_s, torque_capability=frequency.torque_capability(choice.flux_ratio),
         derates=derates, rated_power_w=rated_power_w, available_power_w=available_w,
@@ -98,7 +109,38 @@ def run(machine: Machine, choice: RatingChoice, supply: Supply) -> Running:
         operating=operating, load=load, currents=currents, service_factor=sf,
         service_factor_at_site=sf if clean else 1.0,
         star_delta_possible=_star_delta(machine, choice),
-        efficiency_class=efficiency_class, efficiency_class_minimum=minimum)
+        efficiency_class=(machine.efficiency_class if class_check is None
+                          else class_check.marked or class_check.computed),
+        efficiency_class_minimum=None if minimum is None or math.isnan(minimum) else minimum,
+        efficiency_check=class_check,
+        not_running_reason=_not_running(machine, supply, operating))
+
+
+def _not_running(machine: Machine, supply: Supply,
+                 operating: OperatingPoint | None) -> str | None:
+    """Why the machine cannot run at this site, or None when it can."""
+    site = supply.site
+    if not supply.phases_ok:
+        return (f"a {machine.phases}-phase machine cannot be connected to a {site.phases}-phase "
+                "supply")
+    low, high = RERATING_RANGE
+    if supply.rerated and not low <= supply.frequency_ratio <= high:
+        return (f"{site.frequency_hz:g} Hz is too far from the rated frequency to re-rate "
+                "the machine")
+    t = supply.tolerance
+    if not t.within:
+        where = ("NEMA MG 1 12.44 limits" if t.standard == "NEMA" and not machine.is_generator
+                 else "IEC 60034-1 zone B")
+        return f"the supply is outside {where}"
+    if operating is not None and operating.stalled:
+        return "the motor stalls: the torque asked of it is above its breakdown torque"
+    return None
+
+
+def _prime_mover_power(supply: Supply) -> float | None:
+    """The prime mover's power stated for the site's generator source, or None."""
+    source = supply.site.supply_source
+    return None if source is None else source.prime_mover_power_w
 
 
 # ----------------------------------------------------------------------------- derates
@@ -108,6 +150,10 @@ def _derates(machine: Machine, choice: RatingChoice, supply: Supply) -> Derates:
     voltage, voltage unbalance, and altitude with ambient."""
     site = supply.site
     factors: list[tuple[str, float]] = []
+    if supply.rerated and machine.is_generator:
+        # a generator's fan turns with its shaft: slower at the lower frequency
+        factors.append(("cooling", frequency.cooling_derating(supply.frequency_ratio,
+                                                              machine.cooling)))
     if supply.rerated and not machine.is_generator:
         factors += [
             ("frequency", frequency.frequency_output_factor(supply.frequency_ratio,
@@ -173,7 +219,7 @@ def _operating_point(machine: Machine, choice: RatingChoice, supply: Supply, n_s
     n_rule = speed_physics.slip_rule_speed(n_s, rated_slip, t_rated, k, t0,
                                            loads.TORQUE_EXPONENT[load_type], n0)
     tau = None if n_rule is None else load_torque(n_rule) / t_rated
-    circuit, unavailable = _estimate_circuit(machine, choice)
+    circuit, unavailable, breakdown_basis = _estimate_circuit(machine, choice)
     speed, stalled, valid = n_rule, n_rule is None, True
     slip = load_nm = breakdown_nm = stall_nm = margin = current = pf = eta = None
     if circuit is None:
@@ -197,42 +243,79 @@ def _operating_point(machine: Machine, choice: RatingChoice, supply: Supply, n_s
         circuit=circuit, circuit_unavailable=unavailable, stalled=stalled, speed_rpm=speed,
         slip=slip, load_torque_nm=load_nm, breakdown_torque_nm=breakdown_nm,
         stall_torque_nm=stall_nm, breakdown_margin=margin, current_a=current, power_factor=pf,
-        efficiency=eta)
+        efficiency=eta, breakdown_basis=breakdown_basis)
 
 
-def _estimate_circuit(machine: Machine,
-                      choice: RatingChoice) -> tuple[circuit_physics.Circuit | None, str | None]:
-    """(the rating set's equivalent circuit, or None with the reason when it has one)."""
+def _estimate_circuit(machine: Machine, choice: RatingChoice
+                      ) -> tuple[circuit_physics.Circuit | None, str | None, str | None]:
+    """(the rating set's equivalent circuit, or None with the reason when it has one, and
+    where its breakdown torque comes from): the datasheet's circuit when all five parameters
+    are given, else the nameplate estimate fitted to the datasheet's breakdown torque, or to a
+    typical one for the design (an estimate)."""
     rating, c = choice.rating, choice.connection
     if machine.kind != "induction-motor" or machine.phases != 3:
-        return None, None  # the estimate covers three-phase induction motors
+        return None, None, None  # the estimate covers three-phase induction motors
     assert rating.power_w is not None and rating.speed_rpm is not None  # the caller checked
-    current = c.current_a
-    if c.is_range and current is not None and choice.rated_voltage_v != c.voltage_v:
-        current = current_physics.current_at_site(current, c.voltage_v, choice.rated_voltage_v)
+    given = machine.circuit
+    params = () if given is None else tuple(
+        v for v in (given.r1_ohm, given.r2_ohm, given.x1_ohm, given.x2_ohm, given.xm_ohm)
+        if v is not None)
     try:
+        if len(params) == 5:
+            r1, r2, x1, x2, xm = params
+            return circuit_physics.from_parameters(
+                r1, r2, x1, x2, xm, rating.frequency_hz, choice.poles, rating.power_w,
+                rating.speed_rpm, choice.rated_voltage_v), None, "datasheet equivalent circuit"
+        current = c.current_a
+        if c.is_range and current is not None and choice.rated_voltage_v != c.voltage_v:
+            current = current_physics.current_at_site(current, c.voltage_v,
+                                                      choice.rated_voltage_v)
+        ratio = _breakdown_ratio(rating)
+        design = machine.design_letter
+        if ratio is None:
+            typical, taken = circuit_physics.typical_breakdown_ratio(design)
+            basis = (f"estimate: typical breakdown torque {typical:g} x rated for design "
+                     f"{taken}; ask the maker for the torque curve")
+        else:
+            basis = f"datasheet breakdown torque {ratio:.2f} x rated"
         return circuit_physics.estimate(
             rating.power_w, choice.rated_voltage_v, rating.frequency_hz, choice.poles,
             rating.speed_rpm, current, rating.power_factor, rating.efficiency,
-            machine.design_letter), None
+            design, breakdown_ratio=ratio), None, basis
     except DomainError as exc:
-        return None, str(exc)
+        return None, str(exc), None
+
+
+def _breakdown_ratio(rating: Rating) -> float | None:
+    """The datasheet's breakdown torque over the rated torque, when it gives one."""
+    if rating.breakdown_torque_pu is not None:
+        return rating.breakdown_torque_pu
+    if rating.breakdown_torque_nm is not None and rating.power_w and rating.speed_rpm:
+        return rating.breakdown_torque_nm / speed_physics.shaft_torque(rating.power_w,
+                                                                       rating.speed_rpm)
+    return None
 
 
 def _load_at_site(load_type: str, curve: tuple[str, float, float], speed_rpm: float,
-                  available_w: float | None) -> LoadAtSite:
-    """The driven load at the running speed (affinity laws for pumps and fans)."""
+                  available_w: float | None, frequency_ratio: float) -> LoadAtSite:
+    """The driven load at the running speed (affinity laws for pumps and fans), and its demand
+    at the speed the site frequency sets, judged against the available output."""
     _, t0, n_ref = curve
+    torque = loads.torque_curve(*curve)
     ratio = speed_rpm / n_ref
-    power = speed_physics.shaft_power(loads.torque_curve(*curve)(speed_rpm), speed_rpm)
+    power = speed_physics.shaft_power(torque(speed_rpm), speed_rpm)
+    demand_speed = n_ref * frequency_ratio
+    demand = speed_physics.shaft_power(torque(demand_speed), demand_speed)
     flow = head = power_ratio = None
     if load_type == "centrifugal":
         flow, head, power_ratio = loads.affinity(ratio)
     elif load_type == "constant-torque":
         flow = ratio
+    fraction = demand / available_w if available_w else None
     return LoadAtSite(type=load_type, reference_speed_rpm=n_ref, speed_ratio=ratio,
-                      power_w=power, fraction=power / available_w if available_w else None,
-                      flow_ratio=flow, head_ratio=head, power_ratio=power_ratio)
+                      power_w=power, fraction=fraction, flow_ratio=flow, head_ratio=head,
+                      power_ratio=power_ratio, demand_w=demand, demand_speed_rpm=demand_speed,
+                      margin=None if fraction is None else 1.0 - fraction)
 
 
 # ----------------------------------------------------------------------------- currents
@@ -263,25 +346,51 @@ def _motor_currents(machine: Machine, choice: RatingChoice, supply: Supply,
             basis = "nameplate"
         elif formula is not None:
             full, basis = formula, "formula"
-    code_a: float | None = None
-    code_hp: int | float | None = None
-    power_hp: float | None = None
-    site = supply.site
-    if site.standard == "NEMA" and rating.power_w and supply.phases_ok:
-        power_hp = hp_from_w(rating.power_w)
-        synchronous = machine.kind == "synchronous-motor"
-        # only a synchronous motor's table current depends on its power factor
-        power_factor = (rating.power_factor or 1.0) if synchronous else 1.0
-        for volts in (c.voltage_v, site.voltage_v):
-            found = nec.table_current(power_hp, volts, machine.phases, synchronous, power_factor)
-            if found:
-                code_a, code_hp = found
-                break
+    code_a, code_hp, power_hp, code_rule = _code_current(machine, choice, supply)
     return Currents(
         full_load_a=full, basis=basis, load_a=load_a, power_ratio=power_ratio, formula_a=formula,
         nameplate_formula_ratio=plate_ratio, code_a=code_a, code_hp=code_hp, power_hp=power_hp,
         conductor_a=None if code_a is None else nec.conductor_current(code_a),
-        locked_rotor=_locked_rotor(machine, choice))
+        locked_rotor=_locked_rotor(machine, choice), code_rule=code_rule)
+
+
+def _code_current(machine: Machine, choice: RatingChoice, supply: Supply
+                  ) -> tuple[float | None, int | float | None, float | None, str | None]:
+    """(table current, table hp, rated hp, the rule applied) on a NEMA site, by the scope of
+    NEC 430.6(A)(1): the table current except for low-speed and multispeed motors, and
+    synchronous motors whose power factor has no footnote multiplier."""
+    rating, c, site = choice.rating, choice.connection, supply.site
+    if site.standard != "NEMA" or not rating.power_w or not supply.phases_ok:
+        return None, None, None, None
+    power_hp = hp_from_w(rating.power_w)
+    table = TABLE_BY_PHASES.get(machine.phases, "Table 430.250")
+    scope = f"[{nec.SCOPE_EDITION}] 430.6(A)(1)"
+    multispeed = len({r.poles for r in machine.ratings if r.poles is not None}) > 1
+    reason = nec.nameplate_reason(
+        synchronous_speed_rpm(rating.frequency_hz, choice.poles), multispeed)
+    if reason is not None:
+        return None, None, power_hp, f"nameplate current: {reason} ({scope})"
+    synchronous = machine.kind == "synchronous-motor"
+    power_factor = 1.0
+    if synchronous:
+        if rating.power_factor is None:
+            return None, None, power_hp, (
+                "nameplate current: no rated power factor to choose the Table 430.250 "
+                f"synchronous-motor multiplier ({scope})")
+        if nec.sync_multiplier(rating.power_factor) is None:
+            return None, None, power_hp, (
+                f"nameplate current: rated power factor {rating.power_factor:g} has no "
+                "Table 430.250 multiplier (given for unity, 0.9 and 0.8 only; not rounded to "
+                f"one) ({scope})")
+        power_factor = rating.power_factor
+    for volts in (c.voltage_v, site.voltage_v):
+        found = nec.table_current(power_hp, volts, machine.phases, synchronous, power_factor)
+        if found:
+            return found[0], found[1], power_hp, (
+                f"table current: {table} ([{nec.TABLE_EDITION}] values), {scope}")
+    return None, None, power_hp, (
+        f"nameplate current: {table} has no value for {power_hp:.1f} hp at "
+        f"{c.voltage_v:g} V ({scope})")
 
 
 def _locked_rotor(machine: Machine, choice: RatingChoice) -> LockedRotorCurrent | None:
@@ -320,18 +429,17 @@ def _generator_currents(machine: Machine, supply: Supply, available_va: float | 
 
 # ----------------------------------------------------------------------------- plate facts
 
-def _efficiency(machine: Machine, rating: Rating, poles: int) -> tuple[str | None, float | None]:
-    """(IE class the plate efficiency reaches, minimum efficiency of the marked class)."""
+def _efficiency(machine: Machine, rating: Rating, poles: int) -> ClassCheck | None:
+    """The marked IE class beside the class the plate efficiency reaches, or None when the
+    IEC 60034-30-1 tables do not cover the machine (not a three-phase induction motor, not
+    50/60 Hz)."""
     if machine.kind != "induction-motor" or not rating.power_w or machine.phases != 3:
-        return None, None
+        return None
     f = rating.frequency_hz
     if not (abs(f - 50) < 1 or abs(f - 60) < 1):
-        return None, None
-    achieved = (None if rating.efficiency is None
-                else efficiency_class_of(rating.efficiency, rating.power_w, poles, f))
-    minimum = (None if machine.efficiency_class is None
-               else minimum_efficiency(machine.efficiency_class, rating.power_w, poles, f))
-    return achieved, minimum
+        return None
+    return check_marked_class(machine.efficiency_class, rating.efficiency, rating.power_w,
+                              poles, f)
 
 
 def _star_delta(machine: Machine, choice: RatingChoice) -> bool | None:

@@ -157,7 +157,8 @@ def _machine(entry: Any, index: int, name: str, locator: Locator, problems: Prob
     use = _use(r, entry)
     if problems.count > before:
         return None
-    poles, ratings = plausibility.check_poles(r, ratings, poles, kind)
+    poles, ratings = plausibility.check_poles(r, ratings, poles, kind,
+                                              values["design_letter"])
     if problems.count > before:
         return None
     for r_index, rating in enumerate(ratings):

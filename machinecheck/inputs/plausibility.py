@@ -24,13 +24,14 @@ def _speed_key(r_index: int) -> tuple[str, tuple[str, int]]:
 
 
 def _implied_poles(r: Reader, rating: Rating, r_index: int, poles: int | None,
-                   synchronous: bool) -> int | None:
+                   synchronous: bool, design_letter: str | None = None) -> int | None:
     """Poles implied by one rating's speed, or None after reporting why they cannot be."""
     key, sub = _speed_key(r_index)
     assert rating.speed_rpm is not None
     try:
         implied = speed_physics.poles_from_speed(rating.speed_rpm, rating.frequency_hz,
-                                                 synchronous=synchronous)
+                                                 synchronous=synchronous,
+                                                 design_letter=design_letter)
         most = field("machine", "poles").high
         if most is not None and implied > most:
             r.fail(f"rated speed {rating.speed_rpm:g} rpm at {rating.frequency_hz:g} Hz would "
@@ -51,7 +52,7 @@ def _implied_poles(r: Reader, rating: Rating, r_index: int, poles: int | None,
 
 
 def check_poles(r: Reader, ratings: Sequence[Rating], poles: int | None,
-                kind: str) -> tuple[int | None, list[Rating]]:
+                kind: str, design_letter: str | None = None) -> tuple[int | None, list[Rating]]:
     """Infer or check the poles of every rating set against its speed and frequency.
 
     Several ratings at one frequency with different speeds form a multispeed plate: their pole
@@ -65,7 +66,7 @@ def check_poles(r: Reader, ratings: Sequence[Rating], poles: int | None,
         if rating.speed_rpm is None:
             implied.append(None)
             continue
-        found = _implied_poles(r, rating, r_index, poles, synchronous)
+        found = _implied_poles(r, rating, r_index, poles, synchronous, design_letter)
         if found is None:
             return None, []
         implied.append(found)

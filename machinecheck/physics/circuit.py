@@ -84,6 +84,13 @@ def _design(design: str | None) -> str:
     return key if key in STATOR_LEAKAGE_SHARE else DEFAULT_DESIGN
 
 
+def typical_breakdown_ratio(design: str | None) -> tuple[float, str]:
+    """(typical breakdown over rated torque, the design it is taken for) when the datasheet
+    gives no breakdown torque: an estimate (common practice, see :data:`BREAKDOWN_RATIO`)."""
+    key = _design(design)
+    return BREAKDOWN_RATIO[key], key
+
+
 def _branches(z_in: complex, r1: float, x_lr: float, share: float,
               slip: float) -> tuple[float, float, float, float] | None:
     """(x1, x2, r2, xm) for a locked-rotor reactance, or None when no circuit fits it."""
@@ -104,7 +111,7 @@ def _branches(z_in: complex, r1: float, x_lr: float, share: float,
 def estimate(power_w: float, voltage_v: float, frequency_hz: float, poles: int,
              speed_rpm: float, current_a: float | None = None,
              power_factor: float | None = None, efficiency: float | None = None,
-             design: str | None = None) -> Circuit:
+             design: str | None = None, breakdown_ratio: float | None = None) -> Circuit:
     """Estimate the equivalent circuit from a three-phase nameplate rating set.
 
     Parameters
@@ -120,6 +127,8 @@ def estimate(power_w: float, voltage_v: float, frequency_hz: float, poles: int,
         are needed
     design : NEMA design letter (A-D) or IEC design (N, H), optional; sets the leakage split
         and the breakdown torque the leakage is fitted to
+    breakdown_ratio : breakdown torque over rated torque from the datasheet [-], optional;
+        without it the design's typical ratio (:data:`BREAKDOWN_RATIO`) is an estimate
 
     Returns
     -------
@@ -195,7 +204,8 @@ def estimate(power_w: float, voltage_v: float, frequency_hz: float, poles: int,
 
     key = _design(design)
     share = STATOR_LEAKAGE_SHARE[key]
-    target = BREAKDOWN_RATIO[key] * power_w / (speed_rpm * math.pi / 30.0)
+    ratio = BREAKDOWN_RATIO[key] if breakdown_ratio is None else breakdown_ratio
+    target = ratio * power_w / (speed_rpm * math.pi / 30.0)
     w_sync = 4.0 * math.pi * frequency_hz / poles
 
     def excess(x_lr: float) -> tuple[float | None, tuple[float, float, float, float] | None]:
@@ -246,6 +256,45 @@ def estimate(power_w: float, voltage_v: float, frequency_hz: float, poles: int,
     return Circuit(r1_ohm=r1, x1_ohm=x1, r2_ohm=r2, x2_ohm=x2, xm_ohm=xm,
                    frequency_hz=frequency_hz, poles=poles, rotational_loss_w=p_rot,
                    rated_speed_rpm=speed_rpm, current_fitted=current_fitted)
+
+
+def from_parameters(r1_ohm: float, r2_ohm: float, x1_ohm: float, x2_ohm: float, xm_ohm: float,
+                    frequency_hz: float, poles: int, power_w: float, speed_rpm: float,
+                    voltage_v: float) -> Circuit:
+    """A circuit from datasheet parameters (per phase, star equivalent, at the rated
+    frequency), its rotational loss taken as the converted power at the rated slip less the
+    rated output (none when the parameters give less).
+
+    Parameters
+    ----------
+    r1_ohm, r2_ohm, x1_ohm, x2_ohm, xm_ohm : stator and referred rotor resistance and leakage
+        reactance, magnetising reactance [ohm]
+    frequency_hz : rated frequency the reactances hold at [Hz]
+    poles : number of poles [-]
+    power_w : rated output [W]
+    speed_rpm : rated speed [rpm]
+    voltage_v : rated line-to-line voltage [V]
+
+    References
+    ----------
+    .. [1] S. J. Chapman, *Electric Machinery Fundamentals*, 4th ed., sec. 7.4-7.5 (power flow:
+       P_out = P_conv - P_rot).
+    """
+    values = (r1_ohm, r2_ohm, x1_ohm, x2_ohm, xm_ohm)
+    if not all(v > 0 and math.isfinite(v) for v in values):
+        raise DomainError("equivalent-circuit parameters must be positive")
+    n_s = synchronous_speed_rpm(frequency_hz, poles)
+    slip = (n_s - speed_rpm) / n_s
+    if not 0.0 < slip < 0.5:
+        raise DomainError(f"rated slip {100 * slip:.1f} % is not that of a loaded induction motor")
+    bare = Circuit(r1_ohm=r1_ohm, x1_ohm=x1_ohm, r2_ohm=r2_ohm, x2_ohm=x2_ohm, xm_ohm=xm_ohm,
+                   frequency_hz=frequency_hz, poles=poles, rotational_loss_w=0.0,
+                   rated_speed_rpm=speed_rpm, current_fitted=False)
+    converted = operating_point(bare, voltage_v, frequency_hz, slip).converted_power_w
+    return Circuit(r1_ohm=r1_ohm, x1_ohm=x1_ohm, r2_ohm=r2_ohm, x2_ohm=x2_ohm, xm_ohm=xm_ohm,
+                   frequency_hz=frequency_hz, poles=poles,
+                   rotational_loss_w=max(0.0, converted - power_w), rated_speed_rpm=speed_rpm,
+                   current_fitted=False)
 
 
 def _thevenin(r1: float, x1: float, xm: float, v_ph: float) -> tuple[float, float, float]:
@@ -358,6 +407,10 @@ def operating_point(c: Circuit, voltage_v: float, frequency_hz: float, slip: flo
                           t_max, s_max)
 
 
+#: Slips tried on the stable branch before a load is taken to stall the motor.
+_STALL_SCAN = 48
+
+
 def solve(c: Circuit, voltage_v: float, frequency_hz: float,
           load_torque: Callable[[float], float]) -> OperatingPoint | None:
     """Operating point where the shaft torque meets the load on the stable branch.
@@ -417,7 +470,16 @@ def solve(c: Circuit, voltage_v: float, frequency_hz: float,
     hi = min(peak[1], 1.0)
     f_hi = excess(hi)
     if f_hi < 0.0:
-        return None
+        # a load whose torque rises as the speed falls (constant power) can exceed the
+        # breakdown torque at the breakdown slip and still meet the motor at a smaller slip:
+        # look for a slip on the stable branch with torque to spare before calling a stall
+        for i in range(1, _STALL_SCAN + 1):
+            trial = hi * (1e-4 / hi) ** (i / _STALL_SCAN) if hi > 1e-4 else hi
+            if excess(trial) >= 0.0:
+                hi, f_hi = trial, excess(trial)
+                break
+        else:
+            return None
     lo = 1e-6
     asked_lo = asked(lo)
     f_lo = induced(lo) - asked_lo

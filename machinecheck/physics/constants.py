@@ -21,10 +21,14 @@ UNBALANCE_KNEE = 0.01
 #: Voltage unbalance above which operation is not recommended (NEMA MG 1 14.36) [-].
 UNBALANCE_LIMIT = 0.05
 
-#: Per-unit frequency deviation each standard's running tolerance covers, (low, high); a larger
-#: deviation is a change of nominal frequency and the machine is re-rated (IEC 60034-1 7.3
-#: zone B: -5 %/+3 %; NEMA MG 1 12.44: +-5 %).
-FREQUENCY_BAND = {"IEC": (-0.05, 0.03), "NEMA": (-0.05, 0.05)}
+#: Nominal supply frequencies [Hz]. A machine is re-rated only for a change of nominal
+#: frequency (50 <-> 60 Hz); a site off its nominal (47 Hz, 52 Hz on a 50 Hz system) is a
+#: variation judged in the voltage-frequency tolerance (IEC 60034-1:2022 §7.3 zones A/B; NEMA
+#: MG 1-2016 §12.44).
+NOMINAL_FREQUENCIES_HZ = (50.0, 60.0)
+#: A frequency within this fraction of a nominal one belongs to that nominal (halfway between
+#: 50 and 60 Hz is 55 Hz = 50 x 1.10 = 60 x 0.917; common practice, no published source).
+NOMINAL_FREQUENCY_REACH = 0.08
 #: Frequency ratios over which re-rating from the plate is still meaningful (common practice,
 #: no published source).
 RERATING_RANGE = (0.5, 1.5)
@@ -34,10 +38,24 @@ RERATING_RANGE = (0.5, 1.5)
 NEAR_LIMIT_COMBINED = 0.08
 NEAR_LIMIT_UNDERVOLTAGE = -0.075
 
-#: Slip tolerance of induction motors: +-20 % of the rated slip (IEC 60034-1 Table 20 item 9,
-#: for 1 kW and above; NEMA MG 1 12.46 likewise; clause numbers from memory).
+#: Slip tolerance of induction motors, share of the rated slip: +-30 % below 1 kW, +-20 % at and
+#: above 1 kW (IEC 60034-1:2022 tolerance table, "slip" row; the same +-20 % in NEMA MG 1-2016
+#: §12.46 likewise, clause number from memory).
+SLIP_TOLERANCE_SMALL = 0.30
 SLIP_TOLERANCE = 0.20
+#: Rated output [W] at and above which the smaller slip tolerance applies.
+SLIP_TOLERANCE_THRESHOLD_W = 1000.0
 
+#: Largest full-load slip of a general-purpose induction motor, and of a NEMA Design D (high
+#: slip) motor, whose full-load slip is 5-13 % (NEMA MG 1-2016 §1.19.1.4, clause number from
+#: memory).
+MAX_RATED_SLIP = 0.10
+MAX_RATED_SLIP_DESIGN_D = 0.13
+
+#: Low-speed motors for NEC 430.6(A)(1): built for less than 1200 rpm, read on the synchronous
+#: speed at the rated frequency (8 poles and more at 60 Hz, 6 and more at 50 Hz) [rpm]
+#: ([NFPA 70-2023] 430.6(A)(1)).
+NEC_LOW_SPEED_RPM = 1200.0
 #: Power factor taken for a generator's real output when the plate gives none (the usual
 #: rating basis of synchronous generators, common practice).
 GENERATOR_POWER_FACTOR = 0.8
@@ -83,3 +101,35 @@ def split_phase_half_v(line_voltage_v: float) -> float:
 def star_delta_ratio() -> float:
     """Star voltage over delta voltage of one winding, sqrt(3) [-]."""
     return math.sqrt(3.0)
+
+
+def slip_tolerance(power_w: float) -> float:
+    """Tolerance on the rated slip as a share of it [-]: 0.30 below 1 kW, 0.20 from 1 kW.
+
+    References
+    ----------
+    .. [1] IEC 60034-1:2022, tolerance table on declared values, slip.
+    """
+    return SLIP_TOLERANCE_SMALL if power_w < SLIP_TOLERANCE_THRESHOLD_W else SLIP_TOLERANCE
+
+
+def nominal_frequency_hz(frequency_hz: float) -> float | None:
+    """The nominal frequency (50 or 60 Hz) a frequency belongs to, or None for another one."""
+    for nominal in NOMINAL_FREQUENCIES_HZ:
+        if abs(frequency_hz / nominal - 1.0) <= NOMINAL_FREQUENCY_REACH + 1e-12:
+            return nominal
+    return None
+
+
+def is_nominal_change(site_frequency_hz: float, rated_frequency_hz: float) -> bool:
+    """True when a site frequency is another nominal than the rated one (50 <-> 60 Hz): the
+    machine is then re-rated; an off-nominal value of the same system is a variation.
+
+    A frequency that belongs to neither 50 nor 60 Hz (25 Hz, 400 Hz) is a change of nominal
+    when it lies beyond :data:`NOMINAL_FREQUENCY_REACH` of the rated frequency.
+    """
+    site = nominal_frequency_hz(site_frequency_hz)
+    rated = nominal_frequency_hz(rated_frequency_hz)
+    if site is not None and rated is not None:
+        return site != rated
+    return abs(site_frequency_hz / rated_frequency_hz - 1.0) > NOMINAL_FREQUENCY_REACH + 1e-12

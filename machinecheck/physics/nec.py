@@ -1,11 +1,12 @@
-"""Full-load currents of NFPA 70 (NEC) Tables 430.248 and 430.250, for conductor sizing."""
+"""Full-load currents of NFPA 70 (NEC) Tables 430.248, 430.249 and 430.250, for conductor
+sizing, and the scope of NEC 430.6(A)(1) that decides when they apply."""
 
 from __future__ import annotations
 
 import bisect
 
 from ..errors import DomainError
-from .constants import CONDUCTOR_FACTOR
+from .constants import CONDUCTOR_FACTOR, NEC_LOW_SPEED_RPM
 
 # NFPA 70 (2008 and later) Table 430.250, three-phase induction motors, amperes.
 _COLUMNS_3PH: tuple[float, ...] = (115.0, 200.0, 208.0, 230.0, 460.0, 575.0, 2300.0)
@@ -41,13 +42,32 @@ _TABLE_1PH: dict[float, tuple[float | None, ...]] = {
     1.5: (20, 11.5, 11.0, 10), 2: (24, 13.8, 13.2, 12), 3: (34, 19.6, 18.7, 17),
     5: (56, 32.2, 30.8, 28), 7.5: (80, 46.0, 44.0, 40), 10: (100, 57.5, 55.0, 50),
 }
+# Table 430.249, two-phase motors (four-wire); the common conductor of a three-wire two-phase
+# system carries 1.41 times these values.
+_COLUMNS_2PH: tuple[float, ...] = (115.0, 230.0, 460.0, 575.0, 2300.0)
+_TABLE_2PH: dict[float, tuple[float | None, ...]] = {
+    0.5: (4.0, 2.0, 1.0, 0.8, _N), 0.75: (4.8, 2.4, 1.2, 1.0, _N), 1: (6.4, 3.2, 1.6, 1.3, _N),
+    1.5: (9.0, 4.5, 2.3, 1.8, _N), 2: (11.8, 5.9, 3.0, 2.4, _N), 3: (_N, 8.3, 4.2, 3.3, _N),
+    5: (_N, 13.2, 6.6, 5.3, _N), 7.5: (_N, 19, 9.0, 8.0, _N), 10: (_N, 24, 12, 10, _N),
+    15: (_N, 36, 18, 14, _N), 20: (_N, 47, 23, 19, _N), 25: (_N, 59, 29, 24, _N),
+    30: (_N, 69, 35, 28, _N), 40: (_N, 90, 45, 36, _N), 50: (_N, 113, 56, 45, _N),
+    60: (_N, 133, 67, 53, 14), 75: (_N, 166, 83, 66, 18), 100: (_N, 218, 109, 87, 23),
+    125: (_N, 270, 135, 108, 28), 150: (_N, 312, 156, 125, 32), 200: (_N, 416, 208, 167, 43),
+}
+#: The edition of NFPA 70 whose table values are carried, and whose 430.6(A)(1) is applied.
+TABLE_EDITION = "NFPA 70-2008"
+SCOPE_EDITION = "NFPA 70-2023"
+
 #: Motor voltages each table column may be used for (NEC 430.248/430.250 headings).
 _VOLTAGE_BANDS = ((110.0, 120.0, 115.0), (199.0, 201.0, 200.0), (207.0, 209.0, 208.0),
                   (220.0, 240.0, 230.0), (440.0, 480.0, 460.0), (550.0, 600.0, 575.0),
                   (2300.0, 2400.0, 2300.0))
 
-#: Synchronous motor multipliers for leading power factor (Table 430.250 footnote).
+#: Synchronous motor multipliers for leading power factor (Table 430.250 footnote): given for
+#: unity, 0.9 and 0.8 power factor only; no other factor has one.
 SYNC_PF_MULTIPLIER = {1.0: 1.0, 0.9: 1.1, 0.8: 1.25}
+#: A rated power factor marked to two decimals matches a footnote value within this.
+SYNC_PF_MATCH = 0.005
 #: Conversion slack: kW ratings that are the metric twin of a hp size (7.5 kW = 10.06 hp).
 HP_ROUNDING_SLACK = 0.01
 
@@ -55,6 +75,41 @@ HP_ROUNDING_SLACK = 0.01
 # int | float: a whole size stays an int (100 hp is reported as 100), as the tables give it
 _SIZES_1PH: list[int | float] = sorted(_TABLE_1PH)
 _SIZES_3PH: list[int | float] = sorted(_TABLE_3PH)
+_SIZES_2PH: list[int | float] = sorted(_TABLE_2PH)
+
+
+def sync_multiplier(power_factor: float) -> float | None:
+    """The Table 430.250 footnote multiplier for a synchronous motor's rated power factor:
+    1.0 at unity, 1.1 at 0.9, 1.25 at 0.8; None for any other power factor (the table does
+    not cover it and the nameplate current is used; nothing is rounded to a footnote value).
+
+    References
+    ----------
+    .. [1] NFPA 70 (2008) Table 430.250, footnote to the synchronous-type columns.
+    """
+    for pf, multiplier in SYNC_PF_MULTIPLIER.items():
+        if abs(power_factor - pf) <= SYNC_PF_MATCH:
+            return multiplier
+    return None
+
+
+def nameplate_reason(synchronous_speed_rpm: float, multispeed: bool) -> str | None:
+    """Why NEC 430.6(A)(1) sends a motor to its nameplate current, or None when the table
+    current applies: built for low speed (less than 1200 rpm, read on the synchronous speed
+    at the rated frequency: 8 poles and more at 60 Hz), or multispeed. High-torque motors are
+    in the same exception; the plate data carry no mark of them.
+
+    References
+    ----------
+    .. [1] NFPA 70 (2023) 430.6(A)(1), table values: "other than for motors built for low
+       speeds (less than 1200 RPM) or high torques, and for multispeed motors".
+    """
+    if multispeed:
+        return "multispeed motor"
+    if synchronous_speed_rpm < NEC_LOW_SPEED_RPM - 1e-9:
+        return (f"motor built for low speed ({synchronous_speed_rpm:.0f} rpm synchronous, less "
+                f"than {NEC_LOW_SPEED_RPM:.0f} rpm)")
+    return None
 
 
 def standard_hp(power_hp: float, phases: int = 3) -> int | float:
@@ -68,7 +123,7 @@ def standard_hp(power_hp: float, phases: int = 3) -> int | float:
     .. [1] NEC 430.6(A)(1) and 430.7(A)(7); rounding up is field practice (practice notes
        Q11: 5 kW -> 6.7 hp -> 7.5 hp); the 1 % slack is common practice, no published source.
     """
-    sizes = _SIZES_1PH if phases == 1 else _SIZES_3PH
+    sizes = {1: _SIZES_1PH, 2: _SIZES_2PH}.get(phases, _SIZES_3PH)
     if not power_hp > 0:
         raise DomainError(f"power must be positive, got {power_hp!r} hp")
     i = bisect.bisect_left(sizes, power_hp / (1.0 + HP_ROUNDING_SLACK))
@@ -94,24 +149,30 @@ def table_current(power_hp: float, motor_voltage_v: float, phases: int = 3,
     ----------
     power_hp : rated output [hp] (converted from kW where the plate gives kW)
     motor_voltage_v : motor nameplate voltage of the connection used [V]
-    phases : 1 or 3
+    phases : 1, 2 (Table 430.249) or 3
     synchronous : synchronous motor (unity PF column, x1.1 at 0.9 PF, x1.25 at 0.8 PF leading)
     power_factor : rated leading power factor of a synchronous motor [-]
 
     Returns
     -------
-    (current_a, table_hp) or None when the table has no value for this voltage or size.
+    (current_a, table_hp) or None when the table has no value for this voltage or size, or
+    a synchronous motor's power factor is none of the footnote's (see :func:`sync_multiplier`).
 
     References
     ----------
-    .. [1] NFPA 70 Table 430.250 (three-phase) and Table 430.248 (single-phase), NEC 2008
-       values (numbering unchanged since NEC 2002).
+    .. [1] NFPA 70 Table 430.250 (three-phase), Table 430.249 (two-phase) and Table 430.248
+       (single-phase), NEC 2008 values (numbering unchanged since NEC 2002).
     """
     column = table_column(motor_voltage_v)
     if column is None:
         return None
+    multiplier = sync_multiplier(power_factor) if synchronous else 1.0
+    if multiplier is None:
+        return None
     if phases == 1:
         table, columns = _TABLE_1PH, _COLUMNS_1PH
+    elif phases == 2:
+        table, columns = _TABLE_2PH, _COLUMNS_2PH
     elif synchronous:
         table, columns = _TABLE_SYNC, _COLUMNS_SYNC
     else:
@@ -127,10 +188,7 @@ def table_current(power_hp: float, motor_voltage_v: float, phases: int = 3,
     value = table[hp][columns.index(column)]
     if value is None:
         return None
-    if synchronous:
-        nearest = min(SYNC_PF_MULTIPLIER, key=lambda pf: abs(pf - power_factor))
-        value = value * SYNC_PF_MULTIPLIER[nearest]
-    return float(value), hp
+    return float(value) * multiplier, hp
 
 
 def conductor_current(table_current_a: float) -> float:

@@ -5,10 +5,7 @@ from __future__ import annotations
 import math
 
 from ..errors import DomainError
-from .constants import synchronous_speed_rpm
-
-#: Largest full-load slip accepted when inferring poles; above it the plate is inconsistent.
-MAX_RATED_SLIP = 0.10
+from .constants import MAX_RATED_SLIP, MAX_RATED_SLIP_DESIGN_D, synchronous_speed_rpm
 
 
 def synchronous_speed(frequency_hz: float, poles: int) -> float:
@@ -38,15 +35,18 @@ def synchronous_speed(frequency_hz: float, poles: int) -> float:
 
 
 def poles_from_speed(rated_speed_rpm: float, frequency_hz: float, *,
-                     max_slip: float = MAX_RATED_SLIP, synchronous: bool = False) -> int:
+                     max_slip: float | None = None, synchronous: bool = False,
+                     design_letter: str | None = None) -> int:
     """Pole count implied by a rated speed: the smallest synchronous speed above it.
 
     Parameters
     ----------
     rated_speed_rpm : nameplate full-load speed [rpm]
     frequency_hz : rated frequency of that speed [Hz]
-    max_slip : largest plausible full-load slip [-]
+    max_slip : largest plausible full-load slip [-]; by default 10 %, or 13 % for a NEMA
+        Design D (high-slip) motor
     synchronous : True for synchronous machines, whose rated speed equals n_s exactly
+    design_letter : NEMA design letter, when marked ("D" allows a 5-13 % slip)
 
     Returns
     -------
@@ -85,7 +85,10 @@ def poles_from_speed(rated_speed_rpm: float, frequency_hz: float, *,
     if s <= 0:
         raise DomainError(
             f"{rated_speed_rpm:g} rpm gives no slip below {n_s:g} rpm synchronous at {frequency_hz:g} Hz")
-    if s > max_slip:
+    if max_slip is None:
+        design_d = (design_letter or "").strip().upper() == "D"
+        max_slip = MAX_RATED_SLIP_DESIGN_D if design_d else MAX_RATED_SLIP
+    if s > max_slip + 1e-12:
         raise DomainError(
             f"{rated_speed_rpm:g} rpm implies {100 * s:.1f} % slip below {n_s:g} rpm "
             f"({poles} poles at {frequency_hz:g} Hz), above {100 * max_slip:.0f} %: check speed, "

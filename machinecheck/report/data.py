@@ -63,6 +63,7 @@ def result_dict(a: Assessment, *, explain: bool = False) -> dict[str, Any]:
         "breakdown_torque_margin": (None if operating is None
                                     else _round(operating.breakdown_margin, 2)),
         "operating_point_basis": None if operating is None else operating.basis,
+        "breakdown_torque_basis": None if operating is None else operating.breakdown_basis,
         "rule_speed_rpm": None if operating is None else _round(operating.rule_speed_rpm, 1),
         "star_delta_possible": running.star_delta_possible,
         "locked_rotor_current_a": None if lrc is None else {
@@ -71,18 +72,35 @@ def result_dict(a: Assessment, *, explain: bool = False) -> dict[str, Any]:
             "basis": lrc.basis},
         "code_current_a": _round(currents.code_a, 2),
         "code_current_hp": currents.code_hp,
+        "code_current_rule": currents.code_rule,
         "conductor_current_a": _round(currents.conductor_a, 2),
         "voltage_unbalance": _round(running.derates.unbalance, 4),
         "efficiency_class": running.efficiency_class,
         "load_fraction": None if load is None else _round(load.fraction, 4),
+        "load_demand_kw": None if load is None else _kilo(load.demand_w, 2),
+        "load_margin": None if load is None else _round(load.margin, 4),
         "flow_ratio": None if load is None else _round(load.flow_ratio, 4),
         "head_ratio": None if load is None else _round(load.head_ratio, 4),
     }
     if a.machine.is_generator:
         data["available_apparent_power_kva"] = _kilo(running.available_apparent_power_va, 2)
+    data["not_running_reason"] = running.not_running_reason
+    if running.not_running_reason is not None:
+        for key in RUNNING_KEYS:
+            if key in data:
+                data[key] = None
     if explain:
         data["working"] = list(a.working)
     return data
+
+
+#: The figures of a machine running at the site: None in the result when it cannot run there
+#: (``not_running_reason`` says why).
+RUNNING_KEYS = ("expected_speed_rpm", "available_power_kw", "load_power_kw",
+                "full_load_current_a", "speed_tolerance_rpm", "service_factor_at_site",
+                "operating_current_a", "operating_power_factor", "operating_efficiency",
+                "breakdown_torque_margin", "rule_speed_rpm", "load_fraction", "flow_ratio",
+                "head_ratio", "load_demand_kw", "load_margin", "available_apparent_power_kva")
 
 
 def _finding(f: Finding) -> dict[str, str]:
@@ -125,7 +143,7 @@ def number(value: float | None, fmt: str) -> str:
 def output_text(a: Assessment) -> str:
     """Available over rated output, kW ("-" when the machine cannot run here)."""
     available = a.running.available_power_w
-    if available is None:
+    if available is None or a.running.not_running_reason is not None:
         return "-"
     return f"{available / 1000:.1f} / {a.running.rated_power_w / 1000:.1f}"
 
@@ -138,7 +156,9 @@ SITE_COLUMNS = ("machine", "verdict", "n_s rpm", "speed rpm", "output kW", "FLC 
 def site_row(a: Assessment) -> list[str]:
     """The cells of one pair in the per-site table (texts, not yet escaped)."""
     running = a.running
+    runs = running.not_running_reason is None
     return [a.machine.id, a.verdict, f"{running.synchronous_speed_rpm:.0f}",
-            number(running.expected_speed_rpm, ".0f"), output_text(a),
-            number(running.currents.full_load_a, ".1f"), number(running.currents.load_a, ".1f"),
+            number(running.expected_speed_rpm if runs else None, ".0f"), output_text(a),
+            number(running.currents.full_load_a if runs else None, ".1f"),
+            number(running.currents.load_a if runs else None, ".1f"),
             f"{a.choice.flux_ratio:.3f}"]

@@ -29,8 +29,13 @@ def check(machine: Machine, choice: RatingChoice, supply: Supply,
     if currents.code_a is not None and currents.code_hp is not None:
         found.append(Finding(
             "code-current", "info",
-            f"NFPA 70 Table 430.250/430.248 current {currents.code_a:g} A "
-            f"({currents.code_hp:g} hp) for conductors and short-circuit protection; "
+            f"code current {currents.code_a:g} A ({currents.code_hp:g} hp; "
+            f"{currents.code_rule}) for conductors and short-circuit protection; "
             f"conductors at least {currents.conductor_a:.1f} A (430.22). Set "
             "overloads from the nameplate current"))
+    elif currents.code_rule is not None:
+        found.append(Finding(
+            "code-current", "info",
+            f"{currents.code_rule}: size conductors and short-circuit protection, and set "
+            "overloads, from the nameplate current"))
     return tuple(found)

@@ -38,11 +38,41 @@ def check(machine: Machine, choice: RatingChoice, supply: Supply,
             f"the governor to {n:.0f} rpm, the voltage regulator (output at rated flux about "
             f"{running.rated_flux_voltage_v:.0f} V) and its under-frequency roll-off, and the "
             "overspeed trip"))
+        found += _output(machine, supply, running)
     va, w = running.available_apparent_power_va, running.available_power_w
     if va is not None and w is not None:
         found.append(Finding(
             "generator-output", "info",
             f"available about {va / 1000:.0f} kVA / {w / 1000:.0f} kW at "
             f"{site.voltage_v:.0f} V, {running.currents.full_load_a:.0f} A (rated current "
-            "held; fan slower at lower speed: the maker may ask for less)"))
+            "held; the derates shown included)"))
     return tuple(found)
+
+
+def _output(machine: Machine, supply: Supply, running: Running) -> list[Finding]:
+    """A generator's output at another nominal frequency: the rated kVA is kept (never
+    raised without the prime mover's power), the fan's cooling derate is in the figures."""
+    found: list[Finding] = []
+    ratio = supply.frequency_ratio
+    cooling = running.derates.factor("cooling")
+    if cooling is not None and cooling < 1.0:
+        found.append(Finding(
+            "generator-cooling", "warning",
+            f"shaft fan ({machine.cooling}) turns {100 * (1 - ratio):.0f} % slower: output "
+            f"derated by the cooling factor {cooling:.3f} (common practice, no published "
+            "formula); confirm with the maker"))
+    if ratio > 1.0:
+        source = supply.site.supply_source
+        prime_mover_w = None if source is None else source.prime_mover_power_w
+        w = running.available_power_w
+        if prime_mover_w is None:
+            found.append(Finding(
+                "generator-prime-mover-power", "warning",
+                "rated kVA kept, not raised for the higher speed: no prime-mover power is "
+                "given to carry more, and the cooling at the higher speed is the maker's to "
+                "confirm"))
+        elif w is not None and w >= prime_mover_w - 1e-6:
+            found.append(Finding(
+                "generator-prime-mover-power", "info",
+                f"real output limited to the prime mover's {prime_mover_w / 1000:.0f} kW"))
+    return found

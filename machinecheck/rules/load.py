@@ -4,6 +4,7 @@ from __future__ import annotations
 
 from ..engine.assessment import Finding, RatingChoice, Running, Supply
 from ..model import Machine
+from .operating import torque_pair
 
 #: Fraction of head or flow that may be lost before the duty is in doubt (common practice, no
 #: published source).
@@ -12,15 +13,27 @@ DUTY_LOSS_WARN = 0.10
 SPEED_RISE_NOTE = 1.02
 
 
+def percent_text(share: float) -> str:
+    """A share as a percentage with the decimals needed for the sentence to hold: a share
+    just above or below a whole 100 % (or 0 %) is never shown as exactly that."""
+    digits = 0
+    while digits < 3 and share != 0.0 and round(100 * share, digits) in (0.0, 100.0) \
+            and abs(100 * share - round(100 * share)) > 1e-9:
+        digits += 1
+    return f"{100 * share:.{digits}f} %"
+
+
 def check(machine: Machine, choice: RatingChoice, supply: Supply,
           running: Running) -> tuple[Finding, ...]:
     if machine.load is None or machine.is_generator or not supply.phases_ok:
         return ()
     op = running.operating
     if op is not None and op.stalled:
-        detail = ("" if op.breakdown_torque_nm is None else
-                  f" ({op.stall_torque_nm:.0f} N m against a breakdown torque of "
-                  f"{op.breakdown_torque_nm:.0f} N m)")
+        detail = ""
+        if op.breakdown_torque_nm is not None and op.stall_torque_nm is not None:
+            breakdown, needed = torque_pair(op.breakdown_torque_nm, op.stall_torque_nm)
+            detail = (f" ({needed} N m against a breakdown torque of {breakdown} N m; "
+                      f"{op.breakdown_basis})")
         return (Finding("load-overload", "problem",
                         f"the load needs more torque than the motor can give at this supply"
                         f"{detail}: it would stall or not reach speed"),)
@@ -28,20 +41,22 @@ def check(machine: Machine, choice: RatingChoice, supply: Supply,
     if load is None or load.fraction is None or running.available_power_w is None:
         return ()
     found: list[Finding] = []
-    load_kw = load.power_w / 1000.0
+    demand_kw = load.demand_w / 1000.0
     available_kw = running.available_power_w / 1000.0
+    share = percent_text(load.fraction)
+    needs = (f"the load needs {demand_kw:.2f} kW at {load.demand_speed_rpm:.0f} rpm, {share} "
+             f"of the {available_kw:.2f} kW available at this site")
     if load.fraction > 1.0 + 1e-9:
         remedy = ("run it from a drive at the original frequency, trim the impeller (affinity "
                   "laws in diameter) or change the pulley or gear ratio, or fit a larger motor"
                   if machine.load.type == "centrifugal" else
                   "change the pulley or gear ratio, run it from a drive, or fit a larger motor")
         found.append(Finding("load-overload", "problem",
-                             f"the load draws {load_kw:.1f} kW, {100 * load.fraction:.0f} % of "
-                             f"the {available_kw:.1f} kW available: {remedy}"))
+                             f"{needs}: overloaded by {percent_text(load.fraction - 1.0)}; "
+                             f"{remedy}"))
     else:
         found.append(Finding("load-fraction", "info",
-                             f"the load draws {load_kw:.1f} kW, {100 * load.fraction:.0f} % of "
-                             f"the {available_kw:.1f} kW available"))
+                             f"{needs}: {percent_text(1.0 - load.fraction)} margin left"))
     if load.head_ratio is not None and load.head_ratio < 1.0 - DUTY_LOSS_WARN:
         found.append(Finding(
             "duty-shortfall", "warning",

@@ -13,6 +13,15 @@ BREAKDOWN_MARGIN_WARN = 1.5
 SATURATION_FLUX = 1.05
 
 
+def torque_pair(smaller_nm: float, larger_nm: float) -> tuple[str, str]:
+    """Two torques shown with the decimals needed for the smaller to read smaller (never
+    "14 N m below 14 N m")."""
+    digits = 0
+    while digits < 3 and f"{smaller_nm:.{digits}f}" == f"{larger_nm:.{digits}f}":
+        digits += 1
+    return f"{smaller_nm:.{digits}f}", f"{larger_nm:.{digits}f}"
+
+
 def check(machine: Machine, choice: RatingChoice, supply: Supply,
           running: Running) -> tuple[Finding, ...]:
     op = running.operating
@@ -26,18 +35,21 @@ def check(machine: Machine, choice: RatingChoice, supply: Supply,
         return ()
     if op.stalled:
         if machine.load is None:
+            assert op.breakdown_torque_nm is not None and op.stall_torque_nm is not None
+            low, high = torque_pair(op.breakdown_torque_nm, op.stall_torque_nm)
             return (Finding("motor-stall", "problem",
-                            f"at this supply the breakdown torque ({op.breakdown_torque_nm:.0f} "
-                            f"N m) is below the full-load torque ({op.stall_torque_nm:.0f} N m): "
-                            "loaded to its rating the motor would stall or not reach speed"),)
+                            f"at this supply the breakdown torque ({low} N m) is below the "
+                            f"full-load torque ({high} N m): loaded to its rating the motor "
+                            f"would stall or not reach speed (breakdown torque: "
+                            f"{op.breakdown_basis})"),)
         return ()
     found: list[Finding] = []
     if op.breakdown_margin is not None and op.breakdown_margin < BREAKDOWN_MARGIN_WARN:
         found.append(Finding(
             "breakdown-margin", "warning",
             f"breakdown torque is only {op.breakdown_margin:.2f} x the load torque at this "
-            "supply: a voltage dip or load swing may stall the motor (estimated from a "
-            "typical breakdown torque for the design; ask the maker for the torque curve)"))
+            "supply: a voltage dip or load swing may stall the motor (breakdown torque: "
+            f"{op.breakdown_basis})"))
     load_a = running.currents.load_a
     if choice.flux_ratio > SATURATION_FLUX and load_a is not None:
         found.append(Finding(

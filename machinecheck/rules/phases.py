@@ -20,6 +20,11 @@ def check(machine: Machine, choice: RatingChoice, supply: Supply,
             "phase-mismatch", "problem",
             "three-phase machine on a two-phase (90 degree) supply: it cannot be connected as "
             "is. Remedy: a Scott-T transformer to derive three phases, or a drive"),)
+    if machine.phases == 2 and site.phases != 2:
+        return (Finding(
+            "phase-mismatch", "problem",
+            f"two-phase (90 degree) machine on a {site.phases}-phase supply: it cannot be "
+            "connected as is. Remedy: a Scott-T transformer from three phases, or a drive"),)
     found: list[Finding] = []
     if machine.phases == 1:
         if supply.terminal_note:

@@ -12,9 +12,18 @@ from ..physics.tolerance import is_normal_pairing
 
 def check(machine: Machine, choice: RatingChoice, supply: Supply,
           running: Running) -> tuple[Finding, ...]:
-    if supply.rerated or not supply.phases_ok:
+    if not supply.phases_ok:
         return ()
     t = supply.tolerance
+    if supply.rerated:
+        # the flux rules judge the voltage of a re-rated machine; a stated frequency variation
+        # of the new nominal is judged with it here, in the same zones
+        if not supply.site.frequency_variation or t.zone == "A" or (
+                t.standard == "NEMA" and t.within):
+            return ()
+        found_rerated = (_nema(choice, supply, t) if t.standard == "NEMA"
+                         and not machine.is_generator else _iec(machine, choice, supply, t))
+        return tuple(found_rerated)
     c = choice.connection
     found: list[Finding] = []
     if machine.phases == 3 and is_normal_pairing(supply.supply_voltage_v, c.voltage_v):
@@ -39,8 +48,13 @@ def _where(choice: RatingChoice, supply: Supply, t: Tolerance) -> str:
     where = (f"{supply.terminal_voltage_v:.0f} V {supply.site.frequency_hz:g} Hz on a {rated} "
              f"{choice.rating.frequency_hz:g} Hz rating: dV {100 * dv:+.1f} %, "
              f"df {100 * df:+.1f} %")
-    if supply.site.voltage_range_v is not None and abs(worst - dv) > 1e-9:
-        where += f" (worst end of the site's voltage range dV {100 * worst:+.1f} %)"
+    worst_f = t.worst_frequency_deviation
+    if abs(worst - dv) > 1e-9 or abs(worst_f - df) > 1e-9:
+        where += f" (worst end of the site's voltage range dV {100 * worst:+.1f} %"
+        if supply.site.frequency_variation:
+            where += (f" with its stated frequency variation "
+                      f"+-{100 * supply.site.frequency_variation:g} %: df {100 * worst_f:+.1f} %")
+        where += ")"
     return where
 
 

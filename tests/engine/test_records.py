@@ -28,18 +28,28 @@ def test_supply_voltage_and_terminal_voltage_are_kept_apart():
     # A 230 V single-phase winding on a 400 V wye system is connected line-to-neutral:
     # 400 / sqrt(3) = 230.9 V [IEC 60038:2009 Table 1].
     m = machine(SINGLE, phases=1)
-    a = assess(m, site(frequency="50 Hz", voltage="400 V", system="wye", standard="IEC"))
+    a = assess(m, site(frequency="50 Hz", voltage="400 V", system="wye", wires=4, standard="IEC"))
     assert a.supply.supply_voltage_v == 400.0
     assert a.supply.terminal_voltage_v == pytest.approx(230.94, abs=0.01)
     assert a.supply.terminal_note == "line-to-neutral"
     assert a.choice.flux_ratio == pytest.approx(230.94 / 230, abs=1e-4)
 
 
-def test_offers_of_a_wye_system_to_a_single_phase_machine():
+def test_offers_of_a_four_wire_wye_system_to_a_single_phase_machine():
     offered = supply.offers(machine(SINGLE, phases=1),
-                            site(frequency="50 Hz", voltage="400 V", system="wye",
+                            site(frequency="50 Hz", voltage="400 V", system="wye", wires=4,
                                  standard="IEC"))
     assert [o.note for o in offered] == ["line-to-line", "line-to-neutral"]
+
+
+def test_a_site_that_does_not_state_a_neutral_offers_line_to_line_only():
+    # Nominal system voltages are line-to-line [IEC 60038:2009 Table 1]; a neutral is offered
+    # only where the site has four wires.
+    for fields in (dict(system="wye"), dict(system="wye", wires=3), dict()):
+        offered = supply.offers(machine(SINGLE, phases=1),
+                                site(frequency="50 Hz", voltage="400 V", standard="IEC",
+                                     **fields))
+        assert [o.note for o in offered] == ["line-to-line"], fields
 
 
 def test_the_rating_set_for_the_site_frequency_is_chosen():

@@ -120,3 +120,13 @@ def test_slip_rule_speed_stalls_far_from_the_low_slip_region():
 def test_shaft_torque_identity():
     # T [N m] = 9550 P [kW] / n [rpm] (unit identity, from memory).
     assert sp.shaft_torque(11000, 1460) == pytest.approx(9549.3 * 11 / 1460, rel=1e-4)
+
+
+def test_a_design_d_slip_up_to_13_percent_gives_the_poles():
+    # NEMA Design D: 5-13 % full-load slip [NEMA MG 1-2016 §1.19.1.4] (from memory);
+    # 1575 rpm at 60 Hz is 12.5 % below 1800 rpm: 4 poles.
+    assert sp.poles_from_speed(1575, 60, design_letter="D") == 4
+    with pytest.raises(DomainError):
+        sp.poles_from_speed(1575, 60)  # 12.5 % is not a general-purpose motor's slip
+    with pytest.raises(DomainError):
+        sp.poles_from_speed(1550, 60, design_letter="D")  # 13.9 %

@@ -13,7 +13,8 @@ def test_code_current_and_conductors_at_125_percent():
     # 81.25 A [NFPA 70:2008 §430.22].
     found = by_code(current.check(*records(NEMA_50HP, NEMA_SITE)))
     message = found["code-current"].message
-    assert "current 65 A (50 hp)" in message
+    assert "current 65 A (50 hp; table current: Table 430.250" in message
+    assert "NFPA 70-2023] 430.6(A)(1)" in message
     assert "conductors at least 81.2 A (430.22)" in message
 
 

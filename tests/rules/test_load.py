@@ -32,14 +32,15 @@ def test_pump_moved_50_to_60hz_overloads_the_motor():
 
 
 def test_light_load_is_an_info():
-    # Half the rated torque at rated supply: slip halves (slip ~ torque near rated
-    # [Chapman 2005 ch. 7], from memory): 1500 - 40 / 2 = 1480 rpm, so 5.5 kW x 1480 / 1460 =
-    # 5.58 kW, 51 %.
+    # Half the rated output at the rated frequency: the load is judged at its own rated speed
+    # (1460 rpm: the site frequency is the rated one), 5.5 / 11 = 50 %, 50 % left (common
+    # practice, no published source: the load's duty point against the motor's output).
     found = by_code(load.check(*records(IEC_11KW, dict(frequency="50 Hz", voltage="400 V",
                                                       standard="IEC"),
                                         load={"type": "constant-torque", "power": "5.5 kW"})))
     assert list(found) == ["load-fraction"]
-    assert "5.6 kW, 51 % of the 11.0 kW available" in found["load-fraction"].message
+    assert ("needs 5.50 kW at 1460 rpm, 50 % of the 11.00 kW available at this site: 50 % "
+            "margin left") in found["load-fraction"].message
 
 
 def test_no_load_given_finds_nothing():

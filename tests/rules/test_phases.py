@@ -29,7 +29,8 @@ def test_single_phase_machine_on_wye_is_connected_line_to_neutral():
     # 400 V wye gives 400 / sqrt(3) = 231 V line-to-neutral [IEC 60038:2009 Table 1]: the 230 V
     # single-phase winding goes line-to-neutral.
     found = by_code(phases.check(*records(SINGLE, dict(frequency="50 Hz", voltage="400 V",
-                                                       system="wye", standard="IEC"),
+                                                       system="wye", wires=4,
+                                                       standard="IEC"),
                                           phases=1)))
     assert found["single-phase-connection"].severity == "info"
     assert found["single-phase-connection"].message.endswith("line-to-neutral at 231 V")
