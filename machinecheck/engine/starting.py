@@ -280,7 +280,8 @@ def _motor(machine: Machine, choice: RatingChoice, running: Running,
                                              rotational_loss_w=0.0).power_factor
         t_lr = circuit_physics.operating_point(c, choice.rated_voltage_v, rating.frequency_hz,
                                                1.0, rotational_loss_w=0.0).induced_torque_nm
-        basis = "estimate from the equivalent circuit"
+        given = op is not None and op.breakdown_basis == "datasheet equivalent circuit"
+        basis = "datasheet" if given else "estimate from the equivalent circuit"
     if rating.locked_rotor_torque_nm is not None:
         t_lr, basis = rating.locked_rotor_torque_nm, "datasheet"
     elif rating.locked_rotor_torque_pu is not None:
@@ -528,7 +529,9 @@ def _motor_curve(motor: _Motor, c: circuit_physics.Circuit, v_start: float,
     """The motor's torque at ``v_start``: the equivalent circuit, with the datasheet's
     locked-rotor torque (scaled by k^2) joined linearly to the circuit's breakdown point."""
     circuit_curve = accel.circuit_curve(c, v_start, frequency_hz)
-    if motor.locked_rotor_torque_basis != "datasheet" or motor.locked_rotor_torque_nm is None:
+    rating = choice.rating
+    given = rating.locked_rotor_torque_pu is not None or rating.locked_rotor_torque_nm is not None
+    if not given or motor.locked_rotor_torque_nm is None:
         return circuit_curve
     _, s_max = circuit_physics.breakdown(c, v_start, frequency_hz)
     w_bd = (1.0 - s_max) * 4.0 * math.pi * frequency_hz / choice.poles
