@@ -226,8 +226,10 @@ def terminal_drop(machine: Machine, site: Site, choice: RatingChoice,
     factor (nothing is guessed). The current is the nameplate current moved to the bus voltage
     at the same load (I x U_rated / U), the design current of common practice.
     """
+    if machine.is_generator or (machine.phases != 1 and site.phases != machine.phases):
+        return None  # a generator's cable, or a machine that cannot be connected here
     feeder = feeder_path(machine, site)
-    if feeder is None or machine.is_generator:
+    if feeder is None:
         return None
     c, rating = choice.connection, choice.rating
     if c.current_a is None or rating.power_factor is None:

@@ -40,7 +40,7 @@ def _drop(supply: Supply, s: Starting) -> list[Finding]:
         found.append(Finding("voltage-drop-exceeds-limit", "warning",
                              f"running voltage drop in the feeder {_pct(d.drop)} at "
                              f"{d.current_a:.0f} A exceeds {_pct(d.limit)} ({source})"))
-    if not supply.tolerance.within:
+    if supply.phases_ok and not supply.tolerance.within:
         found.append(Finding("terminal-voltage-out-of-zone", "problem",
                              f"terminal voltage {d.terminal_voltage_v:.0f} V after the feeder's "
                              f"{_pct(d.drop)} drop from {d.bus_voltage_v:.0f} V is outside the "
