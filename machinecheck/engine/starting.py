@@ -306,6 +306,9 @@ def build(machine: Machine, choice: RatingChoice, supply: Supply, running: Runni
     feeder = drop.feeder if drop is not None else feeder_path(machine, site)
     limit = None if site.limits is None else site.limits.starting_dip
     notes: list[str] = []
+    if source is not None and site.supply_source is not None \
+            and site.supply_source.x_over_r is None:
+        notes.append("source X/R not given: the source taken as a pure reactance")
     source_note = source.description if source is not None else (
         NO_SOURCE if site.supply_source is None
         else "the source is judged for three-phase motors on three-phase sites only")

@@ -230,3 +230,40 @@ def test_feeder_drop_judged_at_the_terminals():
     assert {"terminal-voltage-out-of-zone", "voltage-drop-exceeds-limit"} <= codes(a)
     # the same motor on the bus: within the tolerance
     assert assess(motor(), nema_site()).supply.tolerance.within
+
+
+def test_flux_ratio_follows_the_terminal_voltage():
+    a = assess(motor(feeder=CABLE), nema_site())
+    v = a.supply.terminal_voltage_v
+    assert v < 460.0
+    assert a.choice.flux_ratio == pytest.approx(v / 460.0, rel=1e-9)
+    assert a.supply.supply_voltage_v == 460.0
+
+
+@pytest.mark.parametrize("start,current_factor", [
+    # autotransformer at tap k: current and torque x k^2; soft starter: I_lim / I_LR
+    # [IEEE Std 3002.7-2018] (ideal, common practice)
+    ({"method": "autotransformer", "tap": "65 %"}, 0.65 ** 2),
+    ({"method": "soft-starter", "current_limit": "300 %"}, 3 * 32 / I_LR),
+])
+def test_reduced_voltage_starts(start, current_factor):
+    a = assess(motor(lr_torque="200 %", start=start), nema_site(TRANSFORMER))
+    s = a.starting
+    assert s.current_factor == pytest.approx(current_factor, rel=1e-3)
+    z_s = z_transformer(1000e3, 0.0575, 6.0)
+    z_m = Z_LR / current_factor
+    assert s.dip_terminals == pytest.approx(1 - abs(z_m / (z_s + z_m)), rel=1e-3)
+    assert s.acceleration_time_s is not None
+    assert any("common practice" in n for n in s.notes)
+
+
+def test_utility_source_by_fault_current():
+    # S_sc = sqrt(3) U I_k [IEC 60909-0:2016]: 460 V, 20 kA -> 15.93 MVA; no X/R given: a
+    # pure reactance, said in the notes
+    a = assess(motor(start={"method": "direct-on-line"}),
+               nema_site({"kind": "utility", "fault_current": "20 kA"}))
+    s = a.starting
+    assert s.source.short_circuit_power_va == pytest.approx(SQ3 * 460 * 20e3, rel=1e-9)
+    assert s.source.impedance_ohm.real == 0.0
+    assert any("pure reactance" in n for n in s.notes)
+    assert s.minimum_source_va is None  # a utility: no size to choose
