@@ -23,6 +23,7 @@ from . import rating, running, supply
 from . import starting as starting_stage
 from .assessment import VERDICTS, Assessment, Finding, verdict_of
 from .explain import supply_path_working, working
+from .supply_path import terminal_drop
 
 
 def speeds(machine: Machine) -> tuple[int, ...]:
@@ -57,7 +58,7 @@ def _assess(machine: Machine, site: Site, poles: int | None, explain: bool) -> A
     """One machine (one speed of a multispeed plate when ``poles`` is given) on one site."""
     choice, offer = rating.choose(machine, site, poles)
     # a feeder: the tolerance is judged at the terminals, the flux ratio moved with the voltage
-    drop = starting_stage.terminal_drop(machine, site, choice, offer.voltage_v)
+    drop = terminal_drop(machine, site, choice, offer.voltage_v)
     if drop is not None and drop.terminal_voltage_v > 0:
         choice = dataclasses.replace(
             choice, flux_ratio=choice.flux_ratio * drop.terminal_voltage_v / offer.voltage_v)
