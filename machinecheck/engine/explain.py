@@ -194,12 +194,13 @@ def supply_path_working(s: Starting | None, p: Protection | None) -> tuple[str, 
                      f"{s.trip_time_hot_s:.1f} s hot (IEC 60947-4-1 lower limit, I^2 t)")
     if s.minimum_source_va is not None:
         lines.append(f"smallest {s.minimum_source_kind} for the dip limit: "
-                     f"{s.minimum_source_va / 1e3:.0f} kVA")
+                     f"{s.minimum_source_va / 1e3:.0f} kVA (kVA form at the bus)")
     if s.starting_active_power_w is not None:
         lines.append(f"starting active power {s.starting_active_power_w / 1e3:.1f} kW")
     if s.fault_current_a is not None:
         lines.append(f"available fault current at the motor {s.fault_current_a / 1e3:.2f} kA "
-                     f"(IEC 60909-0, c = {s.voltage_factor:g})")
+                     f"(IEC 60909-0, c = {s.voltage_factor:g}, cable at 20 degC; motor "
+                     "contribution left out)")
     lines += [f"  note: {n}" for n in s.notes]
     if p is not None:
         lines += _protection_working(p)

@@ -163,7 +163,7 @@ def build(machine: Machine, choice: RatingChoice, supply: Supply, running: Runni
         c_factor = fault_physics.voltage_factor(site.voltage_v)
         fault = fault_physics.fault_current_at_motor(
             site.voltage_v, source.impedance_ohm,
-            feeder.impedance_ohm if feeder is not None else 0j, c_factor)
+            feeder.cold_impedance_ohm if feeder is not None else 0j, c_factor)
     blank = Starting(
         method=method, source=source, source_note=source_note, feeder=feeder,
         running_drop=drop, current_factor=1.0, torque_factor=1.0, locked_rotor_current_a=None,

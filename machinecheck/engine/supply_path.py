@@ -37,12 +37,18 @@ class SourcePath:
 
 @dataclass(frozen=True, slots=True)
 class FeederPath:
-    """The cable from the bus to the terminals: one phase's impedance [ohm] and its basis."""
+    """The cable from the bus to the terminals: one phase's impedance [ohm] and its basis.
+
+    ``impedance_ohm`` is at the service temperature (drop, dip); ``cold_impedance_ohm`` with a
+    table conductor's resistance at 20 degC, for the largest fault current (IEC 60909-0; a
+    resistance given per length is used as given).
+    """
 
     impedance_ohm: complex
     length_m: float
     parallel: int
     basis: str
+    cold_impedance_ohm: complex = 0j
 
 
 @dataclass(frozen=True, slots=True)
@@ -117,10 +123,13 @@ def feeder_path(machine: Machine, site: Site) -> FeederPath | None:
         return None
     size = f.size_marked
     table: feeder_physics.Conductor | None = None
+    r_cold: float | None = None
     if size:
         nec = not feeder_physics.normalise_size(size).endswith("mm2")
         temperature = TABLE_TEMPERATURE_DEGC["NEC" if nec else "IEC"]
         table = feeder_physics.conductor(size, f.material, temperature, site.frequency_hz)
+        r_cold = feeder_physics.conductor(size, f.material, 20.0,
+                                          site.frequency_hz).resistance_ohm_per_m
     if f.resistance_ohm_per_m is not None:
         r = f.resistance_ohm_per_m
         if f.reactance_ohm_per_m is not None:
@@ -138,7 +147,9 @@ def feeder_path(machine: Machine, site: Site) -> FeederPath | None:
         basis = (f"{size} {f.material} from {table.source} at {table.temperature_degc:g} degC"
                  + (", X 0.08 mohm/m (Annex G default)" if table.reactance_is_default else ""))
     z = feeder_physics.feeder_impedance(r, x, f.length_m, f.parallel)
-    return FeederPath(z, f.length_m, f.parallel, basis)
+    cold = z if f.resistance_ohm_per_m is not None or r_cold is None else \
+        feeder_physics.feeder_impedance(r_cold, x, f.length_m, f.parallel)
+    return FeederPath(z, f.length_m, f.parallel, basis, cold)
 
 
 def terminal_drop(machine: Machine, site: Site, choice: RatingChoice,
