@@ -19,6 +19,7 @@ from .files import convert, schema, validate
 from .guard import run_guarded, say
 from .lookups import current, poles, speed
 from .sources import demo_path
+from .supply_lookups import dip, drop, protect
 
 __all__ = ["main", "demo_path", "_demo_path"]
 
@@ -77,3 +78,6 @@ def main() -> None:
 
 for _command in (check, speed, poles, current, validate, convert, schema):
     main.add_command(_command)
+main.add_command(dip)
+main.add_command(drop)
+main.add_command(protect)

@@ -18,11 +18,15 @@ from __future__ import annotations
 from collections.abc import Iterable, Mapping
 from dataclasses import dataclass
 from types import MappingProxyType
-from typing import Literal
+from typing import TYPE_CHECKING, Literal
 
 from ..model import Connection, Machine, Rating, Site
 from ..physics.circuit import Circuit
 from ..physics.efficiency import ClassCheck
+
+if TYPE_CHECKING:
+    from .protection import Protection
+    from .starting import Starting
 
 Severity = Literal["info", "warning", "problem"]
 Verdict = Literal["compatible", "conditional", "incompatible"]
@@ -276,6 +280,10 @@ class Assessment:
     findings: tuple[Finding, ...]
     verdict: Verdict
     working: tuple[str, ...] = ()
+    #: the start on this source and the protection settings (engine.starting,
+    #: engine.protection); None when the pair gives no source, feeder or start
+    starting: Starting | None = None
+    protection: Protection | None = None
 
     # Flat read-only views, under the names the renderers read.
     @property

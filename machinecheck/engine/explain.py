@@ -4,6 +4,8 @@ from __future__ import annotations
 
 from ..model import Connection, Machine
 from .assessment import Currents, OperatingPoint, RatingChoice, Running, Supply
+from .protection import Protection
+from .starting import Starting
 
 
 def working(machine: Machine, choice: RatingChoice, supply: Supply,
@@ -140,4 +142,80 @@ def _generator(choice: RatingChoice, supply: Supply, running: Running) -> list[s
         lines.append(f"available = {(running.rated_apparent_power_va or 0.0) / 1000:.1f} kVA x "
                      f"{running.derates.combined:.3f} = {va / 1000:.1f} kVA; "
                      f"I = S / (sqrt(3) V) = {running.currents.full_load_a:.1f} A")
+    return lines
+
+
+def supply_path_working(s: Starting | None, p: Protection | None) -> tuple[str, ...]:
+    """The working of the supply path, the start and the protection settings."""
+    if s is None:
+        return ()
+    lines = [f"source: {s.source_note}"]
+    if s.source is not None:
+        z = s.source.impedance_ohm
+        lines.append(f"  Z_source = {z.real * 1e3:.2f} + j{z.imag * 1e3:.2f} mohm; "
+                     f"S_sc = {s.source.short_circuit_power_va / 1e6:.2f} MVA")
+    if s.feeder is not None:
+        z = s.feeder.impedance_ohm
+        lines.append(f"feeder: {s.feeder.length_m:g} m, {s.feeder.parallel} run(s), "
+                     f"{s.feeder.basis}: Z = {z.real * 1e3:.2f} + j{z.imag * 1e3:.2f} mohm")
+    d = s.running_drop
+    if d is not None:
+        lines.append(f"running drop at {d.current_a:.1f} A, PF {d.power_factor:.2f}: "
+                     f"{d.bus_voltage_v:.0f} V at the bus -> terminal voltage "
+                     f"{d.terminal_voltage_v:.1f} V ({100 * d.drop:.2f} %; limit "
+                     f"{100 * d.limit:g} %{' default, common practice' if d.limit_is_default else ''})")
+    if s.starting_current_a is not None:
+        lines.append(f"start {s.method}: current x {s.current_factor:.3g}, torque x "
+                     f"{s.torque_factor:.3g}; locked-rotor {s.locked_rotor_current_a:.0f} A at the "
+                     f"bus voltage -> {s.starting_current_a:.0f} A at {s.starting_voltage_v:.0f} V")
+    if s.dip_terminals is not None:
+        bus = "stiff" if s.dip_bus is None else f"{100 * s.dip_bus:.1f} %"
+        lines.append(f"dip ({s.dip_basis}): bus {bus}, terminals {100 * s.dip_terminals:.1f} % "
+                     f"(limit {100 * s.dip_limit:g} %"
+                     f"{', default, common practice' if s.dip_limit_is_default else ''})")
+    if s.starting_torque_nm is not None:
+        extra = "" if s.breakaway_torque_nm is None else (
+            f" against breakaway {s.breakaway_torque_nm:.0f} N m (margin "
+            f"{100 * (s.breakaway_margin or 0.0):+.0f} %)")
+        lines.append(f"starting torque at the dipped voltage {s.starting_torque_nm:.0f} N m"
+                     f"{extra}")
+    if s.acceleration_time_s is not None:
+        change = "" if s.changeover_speed_rpm is None else (
+            f", star to delta at {s.changeover_speed_rpm:.0f} rpm")
+        lines.append(f"acceleration time t = integral J dw / (T_m - T_L) = "
+                     f"{s.acceleration_time_s:.2f} s{change}")
+    elif s.stall_speed_rpm is not None:
+        lines.append(f"acceleration: the torques meet at {s.stall_speed_rpm:.0f} rpm (stall)")
+    elif s.acceleration_unavailable:
+        lines.append(f"acceleration not computed: {s.acceleration_unavailable}")
+    if s.trip_time_cold_s is not None and s.trip_multiple is not None:
+        lines.append(f"overload class {s.trip_class} at {s.trip_multiple:.2f} x setting: "
+                     f"shortest trip {s.trip_time_cold_s:.1f} s cold, "
+                     f"{s.trip_time_hot_s:.1f} s hot (IEC 60947-4-1 lower limit, I^2 t)")
+    if s.minimum_source_va is not None:
+        lines.append(f"smallest {s.minimum_source_kind} for the dip limit: "
+                     f"{s.minimum_source_va / 1e3:.0f} kVA (kVA form at the bus)")
+    if s.starting_active_power_w is not None:
+        lines.append(f"starting active power {s.starting_active_power_w / 1e3:.1f} kW")
+    if s.fault_current_a is not None:
+        lines.append(f"available fault current at the motor {s.fault_current_a / 1e3:.2f} kA "
+                     f"(IEC 60909-0, c = {s.voltage_factor:g}, cable at 20 degC; motor "
+                     "contribution left out)")
+    lines += [f"  note: {n}" for n in s.notes]
+    if p is not None:
+        lines += _protection_working(p)
+    lines.append(f"caution: {s.caution}")
+    return tuple(lines)
+
+
+def _protection_working(p: Protection) -> list[str]:
+    lines = [f"protection ({p.edition_note or 'IEC practice'}): overload dial "
+             f"{p.overload_dial.current_a:.1f} A ({p.overload_dial.note})"]
+    for setting in (p.overload_maximum, p.conductor_ampacity, p.motor_lead_ampacity,
+                    p.disconnect):
+        if setting is not None:
+            lines.append(f"  {setting.clause}: {setting.current_a:.1f} A {setting.note}".rstrip())
+    for device, rating in p.devices:
+        lines.append(f"  {rating.clause} {device}: {rating.percent:g} % -> "
+                     f"{rating.computed_a:.1f} A, permitted {rating.permitted_a:g} A")
     return lines

@@ -16,9 +16,14 @@ from collections.abc import Callable, Iterable
 
 from ..model import Machine, Site
 from ..rules import RULES
+from ..rules import protection as protection_rules
+from ..rules import starting as starting_rules
+from . import protection as protection_stage
 from . import rating, running, supply
+from . import starting as starting_stage
 from .assessment import VERDICTS, Assessment, Finding, verdict_of
-from .explain import working
+from .explain import supply_path_working, working
+from .supply_path import terminal_drop
 
 
 def speeds(machine: Machine) -> tuple[int, ...]:
@@ -52,18 +57,28 @@ def assess(machine: Machine, site: Site, *, explain: bool = False) -> Assessment
 def _assess(machine: Machine, site: Site, poles: int | None, explain: bool) -> Assessment:
     """One machine (one speed of a multispeed plate when ``poles`` is given) on one site."""
     choice, offer = rating.choose(machine, site, poles)
+    # a feeder: the tolerance is judged at the terminals, the flux ratio moved with the voltage
+    drop = terminal_drop(machine, site, choice, offer.voltage_v)
+    if drop is not None and drop.terminal_voltage_v > 0:
+        choice = dataclasses.replace(
+            choice, flux_ratio=choice.flux_ratio * drop.terminal_voltage_v / offer.voltage_v)
+        offer = supply.Offer(drop.terminal_voltage_v, offer.note)
     seen = supply.see(machine, site, choice, offer)
     at_site = running.run(machine, choice, seen)
-    # the starting, protection and remedies records are built here, from these three, and
-    # passed to the rules and the Assessment beside them
+    start = starting_stage.build(machine, choice, seen, at_site, drop)
+    protect = protection_stage.build(machine, choice, seen, at_site, start)
     found: list[Finding] = []
     for rule in RULES:
         found.extend(rule(machine, choice, seen, at_site))
+    found.extend(starting_rules.check(seen, start))
+    found.extend(protection_rules.check(protect))
     findings = tuple(found)
     return Assessment(
         machine=machine, site=site, choice=choice, supply=seen, running=at_site,
         findings=findings, verdict=verdict_of(findings),
-        working=working(machine, choice, seen, at_site) if explain else ())
+        working=(working(machine, choice, seen, at_site) + supply_path_working(start, protect)
+                 if explain else ()),
+        starting=start, protection=protect)
 
 
 def assess_all(machines: Iterable[Machine], sites: Iterable[Site], *, explain: bool = False,

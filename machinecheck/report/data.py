@@ -85,6 +85,8 @@ def result_dict(a: Assessment, *, explain: bool = False) -> dict[str, Any]:
     if a.machine.is_generator:
         data["available_apparent_power_kva"] = _kilo(running.available_apparent_power_va, 2)
     data["not_running_reason"] = running.not_running_reason
+    data["starting"] = starting_dict(a)
+    data["protection"] = protection_dict(a)
     if running.not_running_reason is not None:
         for key in RUNNING_KEYS:
             if key in data:
@@ -162,3 +164,98 @@ def site_row(a: Assessment) -> list[str]:
             number(running.currents.full_load_a if runs else None, ".1f"),
             number(running.currents.load_a if runs else None, ".1f"),
             f"{a.choice.flux_ratio:.3f}"]
+
+
+def _ka(value: float | None, digits: int = 2) -> float | None:
+    return None if value is None else round(value / 1000.0, digits)
+
+
+def _time(value: float | None) -> float | None:
+    """A time in s for output; an infinite time (no trip) is None."""
+    return None if value is None or math.isinf(value) else round(value, 2)
+
+
+def starting_dict(a: Assessment) -> dict[str, Any] | None:
+    """The "starting" part of a result (docs/json.md); None when the pair gives no source,
+    feeder or start."""
+    s = a.starting
+    if s is None:
+        return None
+    d = s.running_drop
+    return {
+        "method": s.method,
+        "source": None if s.source is None else {
+            "kind": s.source.kind, "description": s.source.description,
+            "short_circuit_power_kva": _kilo(s.source.short_circuit_power_va, 0)},
+        "source_note": s.source_note,
+        "feeder": None if s.feeder is None else {
+            "length_m": _round(s.feeder.length_m, 1), "parallel": s.feeder.parallel,
+            "resistance_ohm": _round(s.feeder.impedance_ohm.real, 5),
+            "reactance_ohm": _round(s.feeder.impedance_ohm.imag, 5), "basis": s.feeder.basis},
+        "running_voltage_drop": None if d is None else _round(d.drop, 4),
+        "running_voltage_drop_limit": None if d is None else _round(d.limit, 4),
+        "running_voltage_drop_limit_default": None if d is None else d.limit_is_default,
+        "terminal_voltage_v": None if d is None else _round(d.terminal_voltage_v, 1),
+        "current_factor": _round(s.current_factor, 4),
+        "torque_factor": _round(s.torque_factor, 4),
+        "locked_rotor_current_a": _round(s.locked_rotor_current_a, 1),
+        "starting_current_a": _round(s.starting_current_a, 1),
+        "starting_kva": _kilo(s.starting_apparent_power_va, 1),
+        "dip_basis": s.dip_basis,
+        "dip_bus": _round(s.dip_bus, 4),
+        "dip_terminals": _round(s.dip_terminals, 4),
+        "dip_limit": _round(s.dip_limit, 4),
+        "dip_limit_default": s.dip_limit_is_default,
+        "starting_voltage_v": _round(s.starting_voltage_v, 1),
+        "starting_torque_nm": _round(s.starting_torque_nm, 1),
+        "starting_torque_basis": s.starting_torque_basis,
+        "breakaway_torque_nm": _round(s.breakaway_torque_nm, 1),
+        "breakaway_margin": _round(s.breakaway_margin, 3),
+        "will_start": s.will_start,
+        "acceleration_time_s": _time(s.acceleration_time_s),
+        "stall_speed_rpm": _round(s.stall_speed_rpm, 0),
+        "changeover_speed_rpm": _round(s.changeover_speed_rpm, 0),
+        "acceleration_unavailable": s.acceleration_unavailable,
+        "trip_class": s.trip_class,
+        "trip_multiple": _round(s.trip_multiple, 2),
+        "trip_time_cold_s": _time(s.trip_time_cold_s),
+        "trip_time_hot_s": _time(s.trip_time_hot_s),
+        "minimum_source_kva": _kilo(s.minimum_source_va, 0),
+        "minimum_source_kind": s.minimum_source_kind,
+        "starting_power_kw": _kilo(s.starting_active_power_w, 1),
+        "prime_mover_power_kw": _kilo(s.prime_mover_power_w, 1),
+        "fault_current_ka": _ka(s.fault_current_a),
+        "voltage_factor": s.voltage_factor,
+        "notes": list(s.notes),
+        "caution": s.caution,
+    }
+
+
+def protection_dict(a: Assessment) -> dict[str, Any] | None:
+    """The "protection" part of a result (docs/json.md); None with no starting record, for a
+    generator, or without a nameplate current."""
+    p = a.protection
+    if p is None:
+        return None
+
+    def setting(x: Any) -> dict[str, Any] | None:
+        return None if x is None else {"current_a": _round(x.current_a, 1), "clause": x.clause,
+                                       "note": x.note}
+
+    return {
+        "code": p.code, "edition": p.edition, "edition_note": p.edition_note,
+        "code_current_a": _round(p.table_current_a, 2),
+        "nameplate_current_a": _round(p.nameplate_current_a, 2),
+        "conductor_ampacity": setting(p.conductor_ampacity),
+        "motor_lead_ampacity": setting(p.motor_lead_ampacity),
+        "overload_maximum": setting(p.overload_maximum),
+        "overload_maximum_will_not_start": setting(p.overload_maximum_will_not_start),
+        "overload_dial": setting(p.overload_dial),
+        "short_circuit_devices": [
+            {"device": name, "percent": r.percent, "computed_a": _round(r.computed_a, 1),
+             "permitted_a": _round(r.permitted_a, 1), "clause": r.clause}
+            for name, r in p.devices],
+        "disconnect": setting(p.disconnect),
+        "trip_class": p.trip_class,
+        "caution": p.caution,
+    }
