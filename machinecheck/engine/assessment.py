@@ -18,11 +18,15 @@ from __future__ import annotations
 from collections.abc import Iterable, Mapping
 from dataclasses import dataclass
 from types import MappingProxyType
-from typing import Literal
+from typing import TYPE_CHECKING, Literal
 
 from ..model import Connection, Machine, Rating, Site
 from ..physics.circuit import Circuit
 from ..physics.efficiency import ClassCheck
+
+if TYPE_CHECKING:
+    from ..rules.regulation import RegulationFinding
+    from .remedies.records import Remedy
 
 Severity = Literal["info", "warning", "problem"]
 Verdict = Literal["compatible", "conditional", "incompatible"]
@@ -276,6 +280,10 @@ class Assessment:
     findings: tuple[Finding, ...]
     verdict: Verdict
     working: tuple[str, ...] = ()
+    #: candidate remedies, each re-checked (built for pairs that are not compatible)
+    remedies: tuple[Remedy, ...] = ()
+    #: the site region's efficiency rule for the machine; None without a region
+    regulation: RegulationFinding | None = None
 
     # Flat read-only views, under the names the renderers read.
     @property

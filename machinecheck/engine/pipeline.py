@@ -17,6 +17,7 @@ from collections.abc import Callable, Iterable
 from ..model import Machine, Site
 from ..rules import RULES
 from . import rating, running, supply
+from . import remedies as remedy
 from .assessment import VERDICTS, Assessment, Finding, verdict_of
 from .explain import working
 
@@ -30,12 +31,31 @@ def speeds(machine: Machine) -> tuple[int, ...]:
     return tuple(found) if len(found) > 1 else ()
 
 
-def assess(machine: Machine, site: Site, *, explain: bool = False) -> Assessment:
+def assess(machine: Machine, site: Site, *, explain: bool = False,
+           remedies: bool = True) -> Assessment:
     """Check one machine against one site supply.
 
     A multispeed plate is judged speed by speed, each on its own rating set; the result is
-    the worst speed's, with a finding that gives the verdict of every speed.
+    the worst speed's, with a finding that gives the verdict of every speed. A pair that is
+    not compatible carries its remedies (``remedies=False``: not built, as for the re-check
+    of a remedy); a site with a region carries its efficiency rule.
     """
+    a = _speeds(machine, site, explain)
+    if site.region is not None:
+        a = dataclasses.replace(a, regulation=remedy.regulation_of(
+            machine, site, a.choice.rating.power_w, a.choice.poles))
+    if remedies and a.verdict != "compatible":
+        a = dataclasses.replace(a, remedies=remedy.build(a, _recheck))
+    return a
+
+
+def _recheck(machine: Machine, site: Site) -> Assessment:
+    """A remedy's re-check: the same pipeline, building no remedies of its own."""
+    return assess(machine, site, remedies=False)
+
+
+def _speeds(machine: Machine, site: Site, explain: bool) -> Assessment:
+    """The assessment of one plate, speed by speed for a multispeed plate."""
     poles = speeds(machine)
     if not poles:
         return _assess(machine, site, None, explain)
