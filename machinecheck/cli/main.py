@@ -18,6 +18,7 @@ from .check import check
 from .files import convert, schema, validate
 from .guard import run_guarded, say
 from .lookups import current, poles, speed
+from .remedy import remedy
 from .sources import demo_path
 
 __all__ = ["main", "demo_path", "_demo_path"]
@@ -75,5 +76,5 @@ def main() -> None:
     """
 
 
-for _command in (check, speed, poles, current, validate, convert, schema):
+for _command in (check, speed, poles, current, validate, convert, schema, remedy):
     main.add_command(_command)

@@ -19,7 +19,7 @@ from ..rules import RULES
 from . import rating, running, supply
 from . import remedies as remedy
 from .assessment import VERDICTS, Assessment, Finding, verdict_of
-from .explain import working
+from .explain import remedy_working, working
 
 
 def speeds(machine: Machine) -> tuple[int, ...]:
@@ -41,11 +41,15 @@ def assess(machine: Machine, site: Site, *, explain: bool = False,
     of a remedy); a site with a region carries its efficiency rule.
     """
     a = _speeds(machine, site, explain)
-    if site.region is not None:
-        a = dataclasses.replace(a, regulation=remedy.regulation_of(
-            machine, site, a.choice.rating.power_w, a.choice.poles))
-    if remedies and a.verdict != "compatible":
+    build = remedies and a.verdict != "compatible"
+    if site.region is None and not build:
+        return a
+    a = dataclasses.replace(a, regulation=remedy.regulation_of(
+        machine, site, a.choice.rating.power_w, a.choice.poles))
+    if build:
         a = dataclasses.replace(a, remedies=remedy.build(a, _recheck))
+    if explain:
+        a = dataclasses.replace(a, working=a.working + remedy_working(a.remedies, a.regulation))
     return a
 
 

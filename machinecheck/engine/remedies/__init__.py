@@ -41,6 +41,8 @@ CHECKLIST = (
 )
 
 _PACKS: dict[str, reg.Pack] = {}
+#: Regulation findings by (region, facts): a fleet repeats the same plates many times.
+_FOUND: dict[tuple[str, reg.MachineFacts], reg.RegulationFinding] = {}
 
 
 def _pack(region: str) -> reg.Pack | None:
@@ -68,13 +70,19 @@ def regulation_of(machine: Machine, site: Site, power_w: float | None, poles: in
         rated_frequencies_hz=tuple(r.frequency_hz for r in machine.ratings),
         rated_voltage_v=volts, placing_date=today or dt.date.today(),
         efficiency_class=machine.efficiency_class)
-    try:
-        found = reg.assess(pack, facts)
-    except MachinecheckError:
-        return None
-    return dataclasses.replace(found, message=(
-        f"{found.message} (judged as placed on the market on {facts.placing_date.isoformat()}: "
-        f"new, or used and imported; moved within the market: {pack.used_moved})"))
+    key = (pack.region, facts)
+    if key not in _FOUND:
+        if len(_FOUND) > 4096:
+            _FOUND.clear()
+        try:
+            found = reg.assess(pack, facts)
+        except MachinecheckError:
+            return None
+        _FOUND[key] = dataclasses.replace(found, message=(
+            f"{found.message} (judged as placed on the market on "
+            f"{facts.placing_date.isoformat()}: new, or used and imported; moved within the "
+            f"market: {pack.used_moved})"))
+    return _FOUND[key]
 
 
 def _required_class(a: Assessment) -> tuple[str | None, str]:
