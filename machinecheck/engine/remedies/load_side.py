@@ -83,14 +83,18 @@ def pulley(a: Assessment) -> Iterator[Candidate]:
 def impeller_trim(a: Assessment) -> Iterator[Candidate]:
     """An impeller trim keeping a faster-running pump within the motor's output."""
     m, load = a.machine, a.running.load
-    if (m.load is None or load is None or load.type != "centrifugal" or load.speed_ratio <= 1.0
-            or not a.running.available_power_w):
+    if (m.load is None or load is None or load.type != "centrifugal"
+            or not a.running.available_power_w or load.reference_speed_rpm <= 0.0):
         return
-    p0 = load.power_w / (load.power_ratio or load.speed_ratio ** 3)
-    limit = a.running.available_power_w / p0
-    if limit >= load.speed_ratio ** 3:
+    # judged, as the load rule judges it, at the speed the site frequency sets
+    ratio = load.demand_speed_rpm / load.reference_speed_rpm
+    if ratio <= 1.0:
         return
-    trim = sf.trim_to_motor(load.speed_ratio, limit, min_flow_ratio=1.0)
+    p0 = load.demand_w / ratio ** 3
+    limit = a.running.available_power_w / p0 * (1.0 - 1e-9)
+    if limit >= ratio ** 3:
+        return
+    trim = sf.trim_to_motor(ratio, limit, min_flow_ratio=1.0)
     d = trim.diameter_ratio
     machine = dataclasses.replace(m, load=dataclasses.replace(
         m.load, power_w=None if m.load.power_w is None else m.load.power_w * d ** 3,
