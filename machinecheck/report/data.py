@@ -106,7 +106,7 @@ def remedy_dict(r: Remedy) -> dict[str, Any]:
             "figures": {name: None if not math.isfinite(value) else _round(value, 4)
                         for name, value in r.figures},
             "cautions": list(r.cautions),
-            "remaining": [_finding(f) for f in r.remaining],
+            "remaining": [{"code": f.code, "severity": f.severity} for f in r.remaining],
             "energy": None if e is None else {
                 "power_saving_kw": _kilo(e.power_saving_w, 3),
                 "annual_energy_kwh": _round(e.annual_energy_j / 3.6e6, 0),
