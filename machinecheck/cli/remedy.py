@@ -34,12 +34,13 @@ def _remedy_lines(number: int, r: Remedy) -> list[str]:
     if e is not None:
         money = ""
         if e.annual_cost is not None:
-            money = f", {e.annual_cost:.0f} {e.currency or ''}/year".rstrip()
+            money = f", {abs(e.annual_cost):.0f} {e.currency or ''}/year".rstrip()
         if e.payback_years is not None:
             money += (", payback never (no saving)" if not math.isfinite(e.payback_years)
                       else f", simple payback {e.payback_years:.1f} years")
-        lines.append(f"   energy: saves {e.power_saving_w / 1000:.3f} kW, "
-                     f"{e.annual_energy_j / 3.6e6:.0f} kWh/year{money}"
+        verb = "saves" if e.power_saving_w >= 0.0 else "uses more:"
+        lines.append(f"   energy: {verb} {abs(e.power_saving_w) / 1000:.3f} kW, "
+                     f"{abs(e.annual_energy_j) / 3.6e6:.0f} kWh/year{money}"
                      + (f" ({e.missing})" if e.missing else ""))
     elif r.energy_missing:
         lines.append(f"   energy: {r.energy_missing}")

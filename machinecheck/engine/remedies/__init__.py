@@ -89,7 +89,8 @@ def _required_class(a: Assessment) -> tuple[str | None, str]:
     """The class a replacement must have: the region pack's, else the site's own minimum."""
     found = regulation_of(a.machine, a.site, a.choice.rating.power_w, a.choice.poles)
     if found is not None and found.required_class is not None:
-        return found.required_class, f"{found.region} rule from {found.applies_from}"
+        later = "".join(f"; {t.required_class} from {t.from_date}" for t in found.upcoming)
+        return found.required_class, f"{found.region} rule from {found.applies_from}{later}"
     if a.site.min_efficiency_class is not None:
         return a.site.min_efficiency_class, "the site's required class"
     return None, "no region given"
@@ -139,6 +140,8 @@ def build(a: Assessment, recheck: Recheck) -> tuple[Remedy, ...]:
         energy = missing = None
         if kind == "replacement":
             energy, missing = load_side.energy(a, after.choice.rating.efficiency)
+            if energy is not None:
+                cautions = (*cautions, load_side.ENERGY_CAUTION)
         remaining = tuple(f for f in after.findings if f.severity != "info"
                           and not (kind == "pulley" and f.code == "duty-shortfall"))
         verdict = after.verdict

@@ -24,6 +24,8 @@ SINGLE_PHASE_MAX_W = 7500.0
 
 PUMP_SPEED_CAUTION = ("a pump run faster sees the head on its casing rise as the speed squared "
                       "and needs more NPSH: check both with the pump maker")
+ENERGY_CAUTION = ("energy figures use full-load efficiencies (the plate's and the class "
+                  "minimum): give part-load values for a figure at the actual load")
 CLASS_CHANGE_CAUTION = ("a higher efficiency class usually means less slip, so a centrifugal "
                         "load turns a little faster and draws more power, and often a higher "
                         "inrush: re-check instantaneous-trip settings")

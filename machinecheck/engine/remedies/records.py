@@ -16,7 +16,7 @@ KINDS = ("reconnection", "transformer", "buck-boost", "drive", "pulley", "impell
          "replacement", "no-complete-fix", "pre-energising-checklist")
 
 #: Extra running losses a remedy brings, ranked 0 (none) to 3 (a drive's conversion losses);
-#: a replacement that saves energy ranks -1. Common practice, no published source: the
+#: a replacement that saves energy ranks -1, one that loses some 1. Common practice, no published source: the
 #: ordering of a series transformer (its full rating in the path) above a buck-boost unit (only
 #: the correction's share) follows from where the power passes through a core.
 RUNNING_COST_RANK = {"reconnection": 0, "pulley": 0, "impeller-trim": 0, "buck-boost": 1,
@@ -69,6 +69,8 @@ class Remedy:
         """Extra running losses, ranked (see :data:`RUNNING_COST_RANK`)."""
         if self.energy is not None and self.energy.power_saving_w > 0.0:
             return -1
+        if self.energy is not None and self.energy.power_saving_w < 0.0:
+            return 1
         return RUNNING_COST_RANK[self.kind]
 
     def figure(self, name: str) -> float | None:
