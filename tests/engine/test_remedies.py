@@ -257,3 +257,62 @@ def test_ranking_by_changes_and_by_running_cost():
         r.changes for r in by_changes if r.verdict == "compatible")
     with pytest.raises(ValueError):
         remedies.rank(a.remedies, "price")
+
+
+def test_working_shows_the_remedies_and_their_recheck():
+    a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="208 V", standard="NEMA"),
+               explain=True)
+    lines = [w for w in a.working if w.startswith("remedy ")]
+    assert any(w.startswith("remedy transformer:") and w.endswith("compatible") for w in lines)
+    assert all("re-checked through the same pipeline" in w for w in lines)
+
+
+def test_reconnection_names_the_connection_that_fits():
+    # A dual-voltage 230/460 V plate on 208 V: the low (230 V) connection, -9.6 %, inside
+    # +-10 % [NEMA MG 1-2016 §12.44].
+    m = machine({"frequency": "60 Hz", "voltage": ["230 V", "460 V"], "current": ["24.5 A", "12.3 A"],
+                 "connection": ["low", "high"], "power": "10 hp", "speed": "1750 rpm",
+                 "efficiency": 0.9, "power_factor": 0.85})
+    a = assess(m, site(frequency="60 Hz", voltage="208 V", standard="NEMA"))
+    r = _one(a, "reconnection")
+    assert "low for 230 V" in r.action
+    assert r.verdict == a.verdict
+    assert not any("1.20 x its rated flux" in c for c in _one(a, "transformer").cautions)
+
+
+def test_pulley_keeps_the_flow_so_the_duty_shortfall_goes():
+    # The load keeps its former speed through the belt [Shigley ch. 17], so its flow is kept;
+    # a small pump stays within the 5/6 of output the motor keeps [NEMA MG 1 12.44.2].
+    m = machine(NEMA_50HP, load={"type": "centrifugal", "power": "20 kW"})
+    a = assess(m, site(frequency="50 Hz", voltage="400 V", standard="IEC"))
+    assert "duty-shortfall" in {f.code for f in a.findings}
+    p = _one(a, "pulley")
+    assert "duty-shortfall" not in {f.code for f in p.remaining}
+    assert p.figure("restored_loading") < 1.0
+    assert p.verdict == "conditional"  # the nominal-frequency change itself stays a warning
+
+
+def test_referred_load_scales_by_the_speed_ratio():
+    # Seen through a belt of ratio r (load speed over motor speed), a fan's torque at a motor
+    # speed n is T(r n) r = T0 r^3 (n/n0)^2, so power and torque at the reference scale by r^3;
+    # a constant-torque load's by r [Karassik Pump Handbook 4th ed. ch. 2] (affinity laws).
+    from machinecheck.model import Load
+
+    fan = load_side.referred_load(Load("centrifugal", power_w=1000.0, max_speed_rpm=1200.0), 1.2)
+    assert fan.power_w == pytest.approx(1728.0)
+    assert fan.max_speed_rpm == pytest.approx(1000.0)
+    belt = load_side.referred_load(Load("constant-torque", torque_nm=100.0, inertia_kgm2=1.0), 1.2)
+    assert belt.torque_nm == pytest.approx(120.0)
+    assert belt.inertia_kgm2 == pytest.approx(1.44)
+
+
+def test_no_large_single_phase_replacement_for_a_three_phase_motor():
+    # Single-phase motors above about 7.5 kW (10 hp) are not offered (common practice, no
+    # published source); the 37 kW motor on a single-phase site keeps only the drive.
+    a = assess(machine(NEMA_50HP), site(frequency="60 Hz", voltage="230 V", phases=1,
+                                        standard="NEMA"))
+    kinds = [r.kind for r in a.remedies]
+    assert "replacement" not in kinds and "drive" in kinds
+    small = assess(machine(MOTOR_230V), site(frequency="60 Hz", voltage="230 V", phases=1,
+                                             standard="NEMA"))
+    assert _one(small, "replacement").verdict == "compatible"
