@@ -29,8 +29,10 @@ PRIORITIES = ("changes", "running-cost")
 #: Before energising a relocated machine: guidance, not a test procedure.
 CHECKLIST = (
     "insulation resistance and polarisation index per IEEE Std 43-2013 (1 min and 10 min "
-    "readings at the test voltage for the winding's rating; PI of 2.0 or more for class B and "
-    "above, IR corrected to 40 degC; from memory): dry the winding when below",
+    "readings at the test voltage for the winding's rating, IR corrected to 40 degC; PI of "
+    "2.0 or more for classes B, F and H, 1.5 for class A; IR at least 5 MOhm for random-wound "
+    "windings and 100 MOhm for form-wound ones built after 1970, from memory): dry or "
+    "recondition the winding when below",
     "connection for the new voltage: links and diagram in the terminal box checked against "
     "the plate",
     "rotation: bump-start uncoupled and check the direction before coupling the load",
