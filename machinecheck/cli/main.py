@@ -18,6 +18,7 @@ from .check import check
 from .files import convert, schema, validate
 from .guard import run_guarded, say
 from .lookups import current, poles, speed
+from .remedy import remedy
 from .sources import demo_path
 from .supply_lookups import dip, drop, protect
 
@@ -76,7 +77,7 @@ def main() -> None:
     """
 
 
-for _command in (check, speed, poles, current, validate, convert, schema):
+for _command in (check, speed, poles, current, validate, convert, schema, remedy):
     main.add_command(_command)
 main.add_command(dip)
 main.add_command(drop)

@@ -25,7 +25,9 @@ from ..physics.circuit import Circuit
 from ..physics.efficiency import ClassCheck
 
 if TYPE_CHECKING:
+    from ..rules.regulation import RegulationFinding
     from .protection import Protection
+    from .remedies.records import Remedy
     from .starting import Starting
 
 Severity = Literal["info", "warning", "problem"]
@@ -284,6 +286,10 @@ class Assessment:
     #: engine.protection); None when the pair gives no source, feeder or start
     starting: Starting | None = None
     protection: Protection | None = None
+    #: candidate remedies, each re-checked (built for pairs that are not compatible)
+    remedies: tuple[Remedy, ...] = ()
+    #: the site region's efficiency rule for the machine; None without a region
+    regulation: RegulationFinding | None = None
 
     # Flat read-only views, under the names the renderers read.
     @property

@@ -2,10 +2,16 @@
 
 from __future__ import annotations
 
+from typing import TYPE_CHECKING
+
 from ..model import Connection, Machine
 from .assessment import Currents, OperatingPoint, RatingChoice, Running, Supply
 from .protection import Protection
 from .starting import Starting
+
+if TYPE_CHECKING:
+    from ..rules.regulation import RegulationFinding
+    from .remedies.records import Remedy
 
 
 def working(machine: Machine, choice: RatingChoice, supply: Supply,
@@ -219,3 +225,22 @@ def _protection_working(p: Protection) -> list[str]:
         lines.append(f"  {rating.clause} {device}: {rating.percent:g} % -> "
                      f"{rating.computed_a:.1f} A, permitted {rating.permitted_a:g} A")
     return lines
+def remedy_working(remedies: tuple[Remedy, ...],
+                   regulation: RegulationFinding | None) -> tuple[str, ...]:
+    """The working of the remedies and the region's efficiency rule, from their records."""
+    lines: list[str] = []
+    for r in remedies:
+        if r.verdict is None:
+            continue
+        figures = ", ".join(f"{name} = {value:.4g}" for name, value in r.figures)
+        lines.append(f"remedy {r.kind}: {r.action}; {figures}; re-checked through the same "
+                     f"pipeline: {r.verdict}")
+        e = r.energy
+        if e is not None:
+            lines.append(f"energy: dP = P x LF x (1/eta_old - 1/eta_new) with eta "
+                         f"{e.efficiency_old:.3f} -> {e.efficiency_new:.3f} = "
+                         f"{e.power_saving_w / 1000:.3f} kW; a year: "
+                         f"{e.annual_energy_j / 3.6e6:.0f} kWh")
+    if regulation is not None:
+        lines.append(f"efficiency rule ({regulation.region}): {regulation.status}")
+    return tuple(lines)

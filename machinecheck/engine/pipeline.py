@@ -20,9 +20,10 @@ from ..rules import protection as protection_rules
 from ..rules import starting as starting_rules
 from . import protection as protection_stage
 from . import rating, running, supply
+from . import remedies as remedy
 from . import starting as starting_stage
 from .assessment import VERDICTS, Assessment, Finding, verdict_of
-from .explain import supply_path_working, working
+from .explain import remedy_working, supply_path_working, working
 from .supply_path import terminal_drop
 
 
@@ -35,12 +36,35 @@ def speeds(machine: Machine) -> tuple[int, ...]:
     return tuple(found) if len(found) > 1 else ()
 
 
-def assess(machine: Machine, site: Site, *, explain: bool = False) -> Assessment:
+def assess(machine: Machine, site: Site, *, explain: bool = False,
+           remedies: bool = True) -> Assessment:
     """Check one machine against one site supply.
 
     A multispeed plate is judged speed by speed, each on its own rating set; the result is
-    the worst speed's, with a finding that gives the verdict of every speed.
+    the worst speed's, with a finding that gives the verdict of every speed. A pair that is
+    not compatible carries its remedies (``remedies=False``: not built, as for the re-check
+    of a remedy); a site with a region carries its efficiency rule.
     """
+    a = _speeds(machine, site, explain)
+    build = remedies and a.verdict != "compatible"
+    if site.region is None and not build:
+        return a
+    a = dataclasses.replace(a, regulation=remedy.regulation_of(
+        machine, site, a.choice.rating.power_w, a.choice.poles))
+    if build:
+        a = dataclasses.replace(a, remedies=remedy.build(a, _recheck))
+    if explain:
+        a = dataclasses.replace(a, working=a.working + remedy_working(a.remedies, a.regulation))
+    return a
+
+
+def _recheck(machine: Machine, site: Site) -> Assessment:
+    """A remedy's re-check: the same pipeline, building no remedies of its own."""
+    return assess(machine, site, remedies=False)
+
+
+def _speeds(machine: Machine, site: Site, explain: bool) -> Assessment:
+    """The assessment of one plate, speed by speed for a multispeed plate."""
     poles = speeds(machine)
     if not poles:
         return _assess(machine, site, None, explain)

@@ -7,6 +7,8 @@ from collections.abc import Iterable
 from typing import Any
 
 from ..engine.assessment import SEVERITIES, VERDICTS, Assessment, Finding, Tolerance
+from ..engine.remedies import Remedy
+from ..rules.regulation import RegulationFinding
 
 
 def _round(value: float | None, digits: int) -> float | None:
@@ -93,7 +95,41 @@ def result_dict(a: Assessment, *, explain: bool = False) -> dict[str, Any]:
                 data[key] = None
     if explain:
         data["working"] = list(a.working)
+    data["remedies"] = [remedy_dict(r) for r in a.remedies]
+    data["regulation"] = None if a.regulation is None else regulation_dict(a.regulation)
     return data
+
+
+def remedy_dict(r: Remedy) -> dict[str, Any]:
+    """One remedy as JSON; see docs/json.md."""
+    e = r.energy
+    return {"kind": r.kind, "action": r.action, "verdict": r.verdict, "changes": r.changes,
+            "running_cost_rank": r.running_cost_rank,
+            "figures": {name: None if not math.isfinite(value) else _round(value, 4)
+                        for name, value in r.figures},
+            "cautions": list(r.cautions),
+            "remaining": [{"code": f.code, "severity": f.severity} for f in r.remaining],
+            "energy": None if e is None else {
+                "power_saving_kw": _kilo(e.power_saving_w, 3),
+                "annual_energy_kwh": _round(e.annual_energy_j / 3.6e6, 0),
+                "efficiency_old": _round(e.efficiency_old, 4),
+                "efficiency_new": _round(e.efficiency_new, 4),
+                "annual_cost": _round(e.annual_cost, 2), "currency": e.currency,
+                "payback_years": (None if e.payback_years is None
+                                  or not math.isfinite(e.payback_years)
+                                  else _round(e.payback_years, 2)),
+                "missing": e.missing},
+            "energy_missing": r.energy_missing}
+
+
+def regulation_dict(g: RegulationFinding) -> dict[str, Any]:
+    """The site region's efficiency rule for the machine, as JSON."""
+    return {"region": g.region, "status": g.status, "required_class": g.required_class,
+            "applies_from": None if g.applies_from is None else g.applies_from.isoformat(),
+            "clause": None if g.tier is None else g.tier.clause, "message": g.message,
+            "source": g.source,
+            "upcoming": [{"from": t.from_date.isoformat(), "required_class": t.required_class,
+                          "clause": t.clause} for t in g.upcoming]}
 
 
 #: The figures of a machine running at the site: None in the result when it cannot run there
